@@ -1,0 +1,84 @@
+// Moisture loss while a wheel dries and ages, from its weigh-ins. The first weigh-in (or a
+// given green weight) is the green cheese just out of the press.
+
+import { MS_PER_DAY, toEpochMs } from './time';
+import type { TimeInput } from './time';
+
+/** One weighing of a wheel. */
+export interface WeighIn {
+  at: TimeInput;
+  kg: number;
+}
+
+function assertMass(kg: number, what: string): void {
+  if (!Number.isFinite(kg) || kg <= 0) throw new RangeError(`${what} must be a positive mass`);
+}
+
+/** Returns the mass lost from one weight to a later one as % of the earlier weight (definition). */
+export function massLossPercent(fromKg: number, toKg: number): number {
+  assertMass(fromKg, 'Earlier weight');
+  if (!Number.isFinite(toKg) || toKg < 0) throw new RangeError('Later weight must be non-negative');
+  return ((fromKg - toKg) / fromKg) * 100;
+}
+
+/** Returns a loss rate in % per week from a loss in % over a number of days (definition). */
+export function lossRatePercentPerWeek(lossPercent: number, days: number): number {
+  if (!Number.isFinite(lossPercent)) throw new RangeError('Loss must be a finite number');
+  if (!Number.isFinite(days) || days <= 0) throw new RangeError('Days must be positive');
+  return (lossPercent / days) * 7;
+}
+
+/** One weigh-in with the losses worked out. */
+export interface MoistureLossPoint {
+  atMs: number;
+  kg: number;
+  /** days since the green weight */
+  days: number;
+  /** % of the previous weight lost since the previous weigh-in (0 for the first) */
+  lossSincePreviousPercent: number;
+  /** % of the green weight lost since the green weight */
+  lossSinceGreenPercent: number;
+  /** loss since the previous weigh-in, % of that weight per week (null for the first) */
+  ratePercentPerWeek: number | null;
+  /** average loss since green, % of green weight per week (null for the first) */
+  averageRatePercentPerWeek: number | null;
+}
+
+/** Returns each weigh-in, in time order, with its loss since the previous and since green (% and %/week). */
+export function moistureLossSeries(weighIns: readonly WeighIn[]): MoistureLossPoint[] {
+  const sorted = weighIns
+    .map((w) => {
+      assertMass(w.kg, 'Weight');
+      return { atMs: toEpochMs(w.at), kg: w.kg };
+    })
+    .sort((a, b) => a.atMs - b.atMs);
+  if (sorted.length === 0) return [];
+  const green = sorted[0];
+  return sorted.map((w, i) => {
+    const days = (w.atMs - green.atMs) / MS_PER_DAY;
+    if (i === 0) {
+      return {
+        ...w,
+        days,
+        lossSincePreviousPercent: 0,
+        lossSinceGreenPercent: 0,
+        ratePercentPerWeek: null,
+        averageRatePercentPerWeek: null,
+      };
+    }
+    const previous = sorted[i - 1];
+    const stepDays = (w.atMs - previous.atMs) / MS_PER_DAY;
+    const lossSincePreviousPercent = massLossPercent(previous.kg, w.kg);
+    const lossSinceGreenPercent = massLossPercent(green.kg, w.kg);
+    return {
+      ...w,
+      days,
+      lossSincePreviousPercent,
+      lossSinceGreenPercent,
+      ratePercentPerWeek:
+        stepDays > 0 ? lossRatePercentPerWeek(lossSincePreviousPercent, stepDays) : null,
+      averageRatePercentPerWeek:
+        days > 0 ? lossRatePercentPerWeek(lossSinceGreenPercent, days) : null,
+    };
+  });
+}
