@@ -1,0 +1,97 @@
+// Aging: how old a wheel is, how long until its target, and the raw-milk caution.
+// Ages count calendar days (a wheel made on the 1st is 1 day old on the 2nd whatever the
+// hour), in the member's time zone when given, else UTC, so daylight-saving changes never
+// make a day of 23 or 25 hours count wrong.
+
+import { calendarDateOf, dateOfDayNumber, dayNumber, isoDate } from './time';
+import type { CalendarDate, TimeInput } from './time';
+
+/** Minimum aging of cheddar made from unpasteurised milk, days (21 CFR 133.113). */
+export const RAW_MILK_MIN_AGING_DAYS = 60;
+
+/** Minimum aging temperature for unpasteurised-milk cheddar: 35 °F in °C (21 CFR 133.113). */
+export const RAW_MILK_MIN_AGING_TEMP_C = (35 - 32) / 1.8;
+
+function dayOf(at: TimeInput | CalendarDate, timeZone?: string): number {
+  if (typeof at === 'object' && !(at instanceof Date)) return dayNumber(at);
+  return dayNumber(calendarDateOf(at, timeZone));
+}
+
+/** Returns the wheel's age in whole calendar days on a date (days; Gregorian calendar arithmetic). */
+export function ageInDays(
+  madeOn: TimeInput | CalendarDate,
+  at: TimeInput | CalendarDate,
+  timeZone?: string,
+): number {
+  return dayOf(at, timeZone) - dayOf(madeOn, timeZone);
+}
+
+/** Returns the ready date as an ISO date "YYYY-MM-DD" (make date + target days; calendar arithmetic). */
+export function readyDate(
+  madeOn: TimeInput | CalendarDate,
+  targetDays: number,
+  timeZone?: string,
+): string {
+  if (!Number.isInteger(targetDays) || targetDays < 0) {
+    throw new RangeError('Target days must be a whole number of days, zero or more');
+  }
+  return isoDate(dateOfDayNumber(dayOf(madeOn, timeZone) + targetDays));
+}
+
+/** Returns the days left until the aging target (days; negative once past it; calendar arithmetic). */
+export function daysToTarget(
+  madeOn: TimeInput | CalendarDate,
+  targetDays: number,
+  at: TimeInput | CalendarDate,
+  timeZone?: string,
+): number {
+  if (!Number.isInteger(targetDays) || targetDays < 0) {
+    throw new RangeError('Target days must be a whole number of days, zero or more');
+  }
+  return targetDays - ageInDays(madeOn, at, timeZone);
+}
+
+export interface RawMilkCaution {
+  /** true when the wheel is raw-milk cheese younger than the 60-day minimum */
+  flagged: boolean;
+  ageDays: number;
+  /** days still short of 60 (0 when not short) */
+  daysShort: number;
+  /** first date the 60-day minimum is met, ISO "YYYY-MM-DD" */
+  minimumMetOn: string;
+  /** caution text to show; empty when not flagged */
+  message: string;
+  source: string;
+}
+
+const RAW_MILK_SOURCE =
+  '21 CFR 133.113 (cheddar from unpasteurised milk: held at least 60 days at no less than ' +
+  '35 °F / 1.7 °C); CDC and FDA public guidance on raw milk';
+
+/**
+ * Returns whether opening or sharing a wheel of unpasteurised-milk cheese now comes before the
+ * 60-day minimum, with the caution to show (21 CFR 133.113; CDC/FDA raw-milk guidance).
+ */
+export function rawMilkCaution(input: {
+  /** true for any milk that was not pasteurised (raw or only thermised) */
+  unpasteurised: boolean;
+  madeOn: TimeInput | CalendarDate;
+  at: TimeInput | CalendarDate;
+  timeZone?: string;
+}): RawMilkCaution {
+  const ageDays = ageInDays(input.madeOn, input.at, input.timeZone);
+  const minimumMetOn = readyDate(input.madeOn, RAW_MILK_MIN_AGING_DAYS, input.timeZone);
+  const daysShort = input.unpasteurised ? Math.max(0, RAW_MILK_MIN_AGING_DAYS - ageDays) : 0;
+  const flagged = daysShort > 0;
+  const message = flagged
+    ? `This wheel is cheese from unpasteurised milk and is ${ageDays} days old. The US ` +
+      `standard for cheddar (21 CFR 133.113) requires such cheese to age at least ` +
+      `${RAW_MILK_MIN_AGING_DAYS} days at 35 °F (1.7 °C) or above before sale; this wheel ` +
+      `gets there on ${minimumMetOn}, ${daysShort} days from now. Raw milk can carry ` +
+      'Listeria, E. coli O157:H7, Salmonella, Campylobacter and Brucella, and aging lowers ' +
+      'that risk without removing it: pregnant people, young children, older adults and ' +
+      'anyone with a weakened immune system should not eat it. Your local rules may be ' +
+      'stricter and take precedence.'
+    : '';
+  return { flagged, ageDays, daysShort, minimumMetOn, message, source: RAW_MILK_SOURCE };
+}
