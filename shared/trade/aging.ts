@@ -17,7 +17,7 @@ function dayOf(at: TimeInput | CalendarDate, timeZone?: string): number {
   return dayNumber(calendarDateOf(at, timeZone));
 }
 
-/** Returns the wheel's age in whole calendar days on a date (days; Gregorian calendar arithmetic). */
+/** Returns the wheel's age in whole calendar days on a date (days; Gregorian calendar). */
 export function ageInDays(
   madeOn: TimeInput | CalendarDate,
   at: TimeInput | CalendarDate,
@@ -26,7 +26,7 @@ export function ageInDays(
   return dayOf(at, timeZone) - dayOf(madeOn, timeZone);
 }
 
-/** Returns the ready date as an ISO date "YYYY-MM-DD" (make date + target days; calendar arithmetic). */
+/** Returns the ready date, ISO "YYYY-MM-DD" (make date + target days; Gregorian calendar). */
 export function readyDate(
   madeOn: TimeInput | CalendarDate,
   targetDays: number,
@@ -38,7 +38,7 @@ export function readyDate(
   return isoDate(dateOfDayNumber(dayOf(madeOn, timeZone) + targetDays));
 }
 
-/** Returns the days left until the aging target (days; negative once past it; calendar arithmetic). */
+/** Returns the days left to the aging target (days, negative once past; Gregorian calendar). */
 export function daysToTarget(
   madeOn: TimeInput | CalendarDate,
   targetDays: number,
@@ -68,10 +68,8 @@ const RAW_MILK_SOURCE =
   '21 CFR 133.113 (cheddar from unpasteurised milk: held at least 60 days at no less than ' +
   '35 °F / 1.7 °C); CDC and FDA public guidance on raw milk';
 
-/**
- * Returns whether opening or sharing a wheel of unpasteurised-milk cheese now comes before the
- * 60-day minimum, with the caution to show (21 CFR 133.113; CDC/FDA raw-milk guidance).
- */
+// Shown when a wheel of unpasteurised-milk cheese is opened or shared before 60 days.
+/** Returns the raw-milk flag, days short of 60 and caution text (21 CFR 133.113; CDC/FDA). */
 export function rawMilkCaution(input: {
   /** true for any milk that was not pasteurised (raw or only thermised) */
   unpasteurised: boolean;

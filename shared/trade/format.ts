@@ -83,7 +83,7 @@ function symbolFor(unit: string, shown: string): string {
   return UNIT_SYMBOLS[unit] ?? unit;
 }
 
-/** Returns a value already in `unit`, formatted with its symbol, e.g. "1 tbsp" (common practice). */
+/** Returns a value already in `unit` with its symbol, e.g. "1 tbsp" (common practice). */
 export function formatQuantity(
   value: number,
   unit: string,

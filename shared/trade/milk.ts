@@ -3,7 +3,7 @@
 export const MILK_SPECIES = ['cow', 'goat', 'sheep', 'buffalo', 'other'] as const;
 export type MilkSpecies = (typeof MILK_SPECIES)[number];
 
-/** Density of whole cow's milk at 20 °C, kg/L (H. D. Goff, Dairy Science and Technology, Guelph). */
+/** Density of whole cow's milk at 20 °C in kg/L (H. D. Goff, Dairy Science, U. of Guelph). */
 export const COW_MILK_DENSITY_KG_PER_L = 1.03;
 
 export interface MilkDensity {

@@ -44,7 +44,7 @@ export interface MoistureLossPoint {
   averageRatePercentPerWeek: number | null;
 }
 
-/** Returns each weigh-in, in time order, with its loss since the previous and since green (% and %/week). */
+/** Returns the weigh-ins in time order with loss since previous and since green (%, %/week). */
 export function moistureLossSeries(weighIns: readonly WeighIn[]): MoistureLossPoint[] {
   const sorted = weighIns
     .map((w) => {

@@ -3,7 +3,7 @@
 
 import { fromKilopascals } from './units';
 
-/** The face of a mould: a round mould by its inside diameter, a square or loaf mould by its sides. */
+/** The face of a mould: round by its inside diameter, square or loaf-shaped by its sides. */
 export type MouldFace =
   | { shape: 'round'; diameterMm: number }
   | { shape: 'rectangular'; widthMm: number; lengthMm: number };

@@ -26,7 +26,7 @@ function practicalValue(amount: SiAmount): number {
   return amount.dimension === 'count' ? amount.value : amount.value * 1000;
 }
 
-/** Returns an amount per litre of milk in g/L, mL/L or drops/L by its dimension (proportion). */
+/** Returns an amount per litre of milk in g/L, mL/L or drops/L (definition of a rate). */
 export function ratePerLitreOfMilk(amount: SiAmount, milkLitres: number): AmountRate {
   assertNonNegative(amount.value, 'Amount');
   assertPositive(milkLitres, 'Milk volume');
@@ -35,7 +35,7 @@ export function ratePerLitreOfMilk(amount: SiAmount, milkLitres: number): Amount
   return { dimension: amount.dimension, value: practicalValue(amount) / milkLitres, unit };
 }
 
-/** Returns an amount per kilogram of curd in g/kg, mL/kg or drops/kg by its dimension (proportion). */
+/** Returns an amount per kilogram of curd in g/kg, mL/kg or drops/kg (definition of a rate). */
 export function ratePerKgOfCurd(amount: SiAmount, curdKg: number): AmountRate {
   assertNonNegative(amount.value, 'Amount');
   assertPositive(curdKg, 'Curd mass');
@@ -58,17 +58,17 @@ export function saltForCurdKg(curdKg: number, saltPercent: number): number {
   return (curdKg * saltPercent) / 100;
 }
 
-/** Returns salt in moisture in % (salt % / moisture % × 100; cheese-science texts, see TRADE.md). */
+/** Returns salt in moisture in % (salt % / moisture % × 100; cheese-science texts). */
 export function saltInMoisturePercent(saltPercent: number, moisturePercent: number): number {
   assertNonNegative(saltPercent, 'Salt');
   assertPositive(moisturePercent, 'Moisture');
   return (saltPercent / moisturePercent) * 100;
 }
 
-/** Calcium chloride limit for cheddar, % of the milk's weight, as anhydrous CaCl2 (21 CFR 133.113). */
+/** Calcium chloride limit, % of the milk's weight as anhydrous CaCl2 (21 CFR 133.113). */
 export const CALCIUM_CHLORIDE_MAX_PERCENT_OF_MILK = 0.02;
 
-/** Returns the calcium chloride in a solution in kg (L × g per 100 mL, anhydrous basis; arithmetic). */
+/** Returns the calcium chloride in a solution in kg (L × g per 100 mL; arithmetic). */
 export function calciumChlorideFromSolutionKg(
   solutionLitres: number,
   gramsPer100mL: number,
@@ -93,7 +93,7 @@ export interface CalciumChlorideCheck {
   source: string;
 }
 
-/** Returns calcium chloride as % of milk weight checked against the 0.02 % limit (21 CFR 133.113). */
+/** Returns calcium chloride as % of milk weight against the 0.02 % limit (21 CFR 133.113). */
 export function checkCalciumChloride(
   calciumChlorideKg: number,
   milkLitres: number,

@@ -11,20 +11,20 @@ function assertFinite(value: number, what: string): void {
   if (!Number.isFinite(value)) throw new RangeError(`${what} must be a finite number`);
 }
 
-/** Returns the factor amounts are multiplied by to go from one milk volume to another (ratio). */
+/** Returns the scale factor new ÷ old milk volume (ratio; common practice, no published source). */
 export function scaleFactor(fromMilkLitres: number, toMilkLitres: number): number {
   assertPositiveLitres(fromMilkLitres, 'Original milk volume');
   assertPositiveLitres(toMilkLitres, 'New milk volume');
   return toMilkLitres / fromMilkLitres;
 }
 
-/** Returns an amount scaled to a new milk volume, in the amount's own unit (proportion). */
+/** Returns an amount scaled to a new milk volume (common practice, no published source). */
 export function scaleAmount(amount: number, fromMilkLitres: number, toMilkLitres: number): number {
   assertFinite(amount, 'Amount');
   return amount * scaleFactor(fromMilkLitres, toMilkLitres);
 }
 
-/** Returns copies of the items with `amount` scaled to the new milk volume, units kept (proportion). */
+/** Returns the items with `amount` scaled, units kept (common practice, no published source). */
 export function scaleAmounts<T extends { amount: number }>(
   items: readonly T[],
   fromMilkLitres: number,
@@ -37,14 +37,14 @@ export function scaleAmounts<T extends { amount: number }>(
   });
 }
 
-/** Returns an amount per litre of milk, in the amount's unit per L (proportion). */
+/** Returns an amount per litre of milk, unit per L (common practice, no published source). */
 export function amountPerLitreOfMilk(amount: number, milkLitres: number): number {
   assertFinite(amount, 'Amount');
   assertPositiveLitres(milkLitres, 'Milk volume');
   return amount / milkLitres;
 }
 
-/** Returns the amount for a milk volume from a rate per litre, in the rate's unit (proportion). */
+/** Returns rate per litre × milk litres (common practice, no published source). */
 export function amountForMilk(ratePerLitre: number, milkLitres: number): number {
   assertFinite(ratePerLitre, 'Rate per litre');
   if (!Number.isFinite(milkLitres) || milkLitres < 0) {

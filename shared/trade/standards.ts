@@ -20,7 +20,7 @@ export const CHEDDAR_STANDARD = {
   source: '21 CFR 133.113, Cheddar cheese',
 } as const;
 
-/** Returns fat in dry matter: fat as % of the solids (fat % / (100 − moisture %) × 100; definition). */
+/** Returns fat in dry matter, % of the solids (fat % / (100 − moisture %) × 100; definition). */
 export function fatInDryMatterPercent(fatPercent: number, moisturePercent: number): number {
   if (!Number.isFinite(fatPercent) || fatPercent < 0 || fatPercent > 100) {
     throw new RangeError('Fat must be a percentage');
@@ -45,7 +45,7 @@ export interface CheddarStandardCheck {
   source: string;
 }
 
-/** Returns the cheese's moisture and fat-in-solids checked against the cheddar limits (21 CFR 133.113). */
+/** Returns moisture and fat in solids checked against the cheddar limits (21 CFR 133.113). */
 export function checkCheddarStandard(cheese: {
   /** moisture of the cheese, % by weight */
   moisturePercent: number;

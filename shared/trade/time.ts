@@ -16,7 +16,7 @@ export function toEpochMs(at: TimeInput): number {
   return ms;
 }
 
-/** Returns the minutes elapsed from `from` to `to` (min, negative if `to` is earlier); arithmetic. */
+/** Returns the minutes from `from` to `to` (min, negative if `to` is earlier; arithmetic). */
 export function minutesBetween(from: TimeInput, to: TimeInput): number {
   return (toEpochMs(to) - toEpochMs(from)) / MS_PER_MINUTE;
 }
@@ -47,11 +47,9 @@ function formatterFor(timeZone: string): Intl.DateTimeFormat {
 
 const DATE_ONLY = /^(\d{4})-(\d{2})-(\d{2})$/;
 
-/**
- * Returns the calendar date of an instant in an IANA time zone (default UTC); ECMA-402 Intl.
- * A date-only string ("2024-03-01") already is a calendar date and is taken as written in any
- * zone, where Date.parse would read it as UTC midnight and shift it a day west of Greenwich.
- */
+// A date-only string ("2024-03-01") already is a calendar date and is taken as written in any
+// zone, where Date.parse would read it as UTC midnight and shift it a day west of Greenwich.
+/** Returns the calendar date of an instant in an IANA time zone, default UTC (ECMA-402 Intl). */
 export function calendarDateOf(at: TimeInput, timeZone = 'UTC'): CalendarDate {
   if (typeof at === 'string') {
     const m = DATE_ONLY.exec(at);

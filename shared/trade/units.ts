@@ -181,7 +181,7 @@ export function deltaFromCelsius(deltaC: number, unit: TemperatureUnit): number 
   throw new RangeError(`Unknown unit: ${String(unit)}`);
 }
 
-/** Returns the volume of a count of drops in litres (L) at the stated mL per drop (common practice). */
+/** Returns the volume of some drops in litres at a stated mL per drop (common practice). */
 export function dropsToLitres(drops: number, mlPerDrop: number = DEFAULT_ML_PER_DROP): number {
   assertFinite(drops, 'Drop count');
   if (!(mlPerDrop > 0) || !Number.isFinite(mlPerDrop)) {
@@ -190,7 +190,7 @@ export function dropsToLitres(drops: number, mlPerDrop: number = DEFAULT_ML_PER_
   return (drops * mlPerDrop) / 1000;
 }
 
-/** Returns the number of drops in a volume in litres at the stated mL per drop (common practice). */
+/** Returns the drops in a volume given in litres at a stated mL per drop (common practice). */
 export function litresToDrops(litres: number, mlPerDrop: number = DEFAULT_ML_PER_DROP): number {
   assertFinite(litres, 'Volume');
   if (!(mlPerDrop > 0) || !Number.isFinite(mlPerDrop)) {
@@ -236,10 +236,8 @@ export function amountDimension(unit: AmountUnit): AmountDimension {
   throw new RangeError(`Unknown unit: ${String(unit)}`);
 }
 
-/**
- * Returns an ingredient amount in its SI unit with its dimension (L, kg, or drops kept as a
- * count, never turned into a volume here); NIST SP 811 Appendix B.
- */
+// Drops are kept as a count here, never turned into a volume.
+/** Returns an amount in its SI unit with its dimension: L, kg or drops (NIST SP 811 App. B). */
 export function amountToSi(value: number, unit: AmountUnit): SiAmount {
   const dimension = amountDimension(unit);
   if (dimension === 'volume') return { dimension, value: toLitres(value, unit as VolumeUnit) };
@@ -259,10 +257,8 @@ export function amountFromSi(amount: SiAmount, unit: AmountUnit): number {
   return amount.value;
 }
 
-/**
- * Returns the amount as a volume in litres (L), turning drops into a volume only with an
- * explicit mL-per-drop figure (common practice, no published source); throws for a mass.
- */
+// Drops become a volume only with an explicit mL-per-drop figure; a mass throws.
+/** Returns the amount as a volume in L; drops at a stated mL per drop (common practice). */
 export function amountToLitres(value: number, unit: AmountUnit, mlPerDrop?: number): number {
   const dimension = amountDimension(unit);
   if (dimension === 'volume') return toLitres(value, unit as VolumeUnit);

@@ -40,7 +40,7 @@ export function yieldKgPer100KgMilk(cheeseKg: number, milkKg: number): number {
   return yieldPercent(cheeseKg, milkKg);
 }
 
-/** Returns the casein % of milk from its true protein % (× casein fraction, default 0.78 [memory]). */
+/** Returns milk casein % from true protein % × casein fraction (default 0.78 [memory]). */
 export function caseinFromProtein(
   proteinPercent: number,
   caseinFraction: number = DEFAULT_CASEIN_FRACTION,
@@ -68,7 +68,7 @@ export type VanSlykeInput = {
     }
 );
 
-/** Returns Van Slyke's predicted cheddar yield in kg cheese per 100 kg milk (Van Slyke & Price 1949). */
+/** Returns the Van Slyke cheddar yield in kg cheese per 100 kg milk (Van Slyke & Price 1949). */
 export function vanSlykeYield(input: VanSlykeInput): number {
   assertPercent(input.fatPercent, 'Fat');
   assertPercent(input.moisturePercent, 'Moisture');
@@ -82,7 +82,7 @@ export function vanSlykeYield(input: VanSlykeInput): number {
   return solids / (1 - input.moisturePercent / 100);
 }
 
-/** Returns the predicted cheese mass in kg for a milk mass and a yield in kg/100 kg (proportion). */
+/** Returns the cheese mass in kg for a milk mass at a yield in kg/100 kg (definition). */
 export function predictedCheeseKg(milkKg: number, yieldPer100Kg: number): number {
   assertNonNegative(milkKg, 'Milk mass');
   assertNonNegative(yieldPer100Kg, 'Yield');
