@@ -18,7 +18,14 @@ import {
   checkCheddarStandard,
   fatInDryMatterPercent,
 } from '../../../shared/trade/standards';
-import { calendarDateOf, minutesBetween, toEpochMs } from '../../../shared/trade/time';
+import {
+  calendarDateOf,
+  dateOfDayNumber,
+  dayNumber,
+  isoDate,
+  minutesBetween,
+  toEpochMs,
+} from '../../../shared/trade/time';
 import { deltaFromCelsius, toCelsius } from '../../../shared/trade/units';
 
 const start = Date.parse('2024-06-01T10:00:00Z');
@@ -215,5 +222,13 @@ describe('time helpers (ECMAScript Date)', () => {
     expect(toEpochMs(ms)).toBe(ms);
     expect(minutesBetween('2024-06-01T10:00:00Z', '2024-06-01T10:45:00Z')).toBe(45);
     expect(() => toEpochMs('yesterday-ish')).toThrow(RangeError);
+  });
+
+  it('numbers days from 1970-01-01: 2000-01-01 is day 10957 (30 × 365 + 7 leap days, Gregorian)', () => {
+    expect(dayNumber({ year: 1970, month: 1, day: 1 })).toBe(0);
+    expect(dayNumber({ year: 2000, month: 1, day: 1 })).toBe(10957);
+    expect(dateOfDayNumber(10957)).toEqual({ year: 2000, month: 1, day: 1 });
+    // ISO 8601 calendar date, extended format
+    expect(isoDate({ year: 2024, month: 3, day: 9 })).toBe('2024-03-09');
   });
 });
