@@ -60,7 +60,7 @@ export const MILLIMETRES_PER: Readonly<Record<LengthUnit, number>> = {
   in: 25.4,
 };
 
-/** Newtons in one of each force unit (NIST SP 811 App. B; both exact: lbf = 1 lb × 9.80665 m/s²). */
+/** Newtons in one of each force unit (NIST SP 811 App. B; exact: lbf = 1 lb × 9.80665 m/s²). */
 export const NEWTONS_PER: Readonly<Record<ForceUnit, number>> = {
   N: 1,
   kgf: 9.80665,
