@@ -1,0 +1,103 @@
+import type { RouteRecordRaw } from 'vue-router';
+import type { Role } from '@shared/types/member';
+
+declare module 'vue-router' {
+  interface RouteMeta {
+    /** Only signed-in members may open the route. */
+    requiresAuth?: boolean;
+    /** Only these roles may open the route. */
+    roles?: Role[];
+    /** Signed-in members are sent to Discover (sign-in, sign-up). */
+    guestOnly?: boolean;
+    title?: string;
+  }
+}
+
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/',
+    name: 'discover',
+    component: () => import('../views/discover/DiscoverView.vue'),
+    meta: { title: 'Discover' },
+  },
+  {
+    path: '/journals/:id(\\d+)',
+    name: 'journal',
+    component: () => import('../views/journals/JournalView.vue'),
+    props: true,
+    meta: { title: 'Journal' },
+  },
+  {
+    path: '/cave',
+    name: 'cave',
+    component: () => import('../views/cave/CaveView.vue'),
+    meta: { requiresAuth: true, title: 'My cave' },
+  },
+  {
+    path: '/compare',
+    name: 'compare',
+    component: () => import('../views/compare/CompareView.vue'),
+    meta: { title: 'Compare' },
+  },
+  {
+    path: '/signin',
+    name: 'sign-in',
+    component: () => import('../views/account/SignInView.vue'),
+    meta: { guestOnly: true, title: 'Sign in' },
+  },
+  {
+    path: '/join',
+    name: 'sign-up',
+    component: () => import('../views/account/SignUpView.vue'),
+    meta: { guestOnly: true, title: 'Join' },
+  },
+  {
+    path: '/verify',
+    name: 'verify-email',
+    component: () => import('../views/account/VerifyView.vue'),
+    meta: { title: 'Confirm your e-mail' },
+  },
+  {
+    path: '/forgot',
+    name: 'forgot-password',
+    component: () => import('../views/account/ForgotPasswordView.vue'),
+    meta: { guestOnly: true, title: 'Forgot password' },
+  },
+  {
+    path: '/reset',
+    name: 'reset-password',
+    component: () => import('../views/account/ResetPasswordView.vue'),
+    meta: { title: 'New password' },
+  },
+  {
+    path: '/settings',
+    name: 'settings',
+    component: () => import('../views/account/SettingsView.vue'),
+    meta: { requiresAuth: true, title: 'Account settings' },
+  },
+  {
+    path: '/@:handle([a-z0-9_-]+)',
+    name: 'profile',
+    component: () => import('../views/members/ProfileView.vue'),
+    props: true,
+    meta: { title: 'Maker' },
+  },
+  {
+    path: '/admin',
+    name: 'admin',
+    component: () => import('../views/admin/AdminView.vue'),
+    meta: { requiresAuth: true, roles: ['moderator', 'admin'], title: 'Admin' },
+  },
+  {
+    path: '/safety',
+    name: 'safety',
+    component: () => import('../views/SafetyView.vue'),
+    meta: { title: 'Safety notes' },
+  },
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('../views/NotFoundView.vue'),
+    meta: { title: 'Not found' },
+  },
+];

@@ -1,0 +1,110 @@
+// `npm test`: the same set-up as `npm start`, but with a throwaway MariaDB (its own temporary
+// data directory and port, removed afterwards), then lint, type checks, the client build and
+// every vitest layer (unit, api, e2e). Exits non-zero on any failure.
+// Extra arguments go to vitest, e.g. `npm test -- --project unit`.
+import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { ensureClientBuild } from './lib/build.mjs';
+import { startPrivateDatabase } from './lib/database.mjs';
+import { ensureChromium, ensureNodeModules } from './lib/deps.mjs';
+import { checkNode } from './lib/node-check.mjs';
+import { run } from './lib/run.mjs';
+import { fail, ok, step } from './lib/say.mjs';
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+const vitestArgs = process.argv.slice(2);
+const quick = vitestArgs.length > 0; // a focused run skips lint and type checks
+let database = null;
+let tempDir = null;
+let cleaned = false;
+
+async function cleanup() {
+  if (cleaned) return;
+  cleaned = true;
+  if (database) await database.stop();
+  if (tempDir) rmSync(tempDir, { recursive: true, force: true });
+}
+
+async function main() {
+  checkNode();
+  await ensureNodeModules(root);
+  const chromium = await ensureChromium();
+  tempDir = mkdtempSync(path.join(os.tmpdir(), 'rindwise-test-'));
+  const started = await startPrivateDatabase({
+    dir: path.join(tempDir, 'mariadb'),
+    database: 'rindwise_test',
+    remember: false,
+  });
+  database = started.db;
+
+  const bin = (name) => path.join(root, 'node_modules/.bin', name);
+  const failures = [];
+  const stage = async (name, command, args, env = {}) => {
+    step(name);
+    const code = await run(command, args, { cwd: root, env: { ...process.env, ...env } });
+    if (code === 0) ok(name);
+    else failures.push(`${name} (exit ${code})`);
+    return code;
+  };
+
+  if (!quick) {
+    await stage('Lint (ESLint)', bin('eslint'), ['.']);
+    await stage('Formatting (Prettier)', bin('prettier'), ['--check', '.']);
+    await stage('Type check: client (vue-tsc)', bin('vue-tsc'), [
+      '--noEmit',
+      '-p',
+      'tsconfig.app.json',
+    ]);
+    await stage('Type check: server (tsc)', bin('tsc'), ['--noEmit', '-p', 'tsconfig.server.json']);
+  }
+  await ensureClientBuild(root);
+
+  const uploads = path.join(tempDir, 'uploads');
+  mkdirSync(uploads, { recursive: true });
+  const report = path.join(tempDir, 'vitest.json');
+  await stage(
+    'Tests (vitest: unit, api, e2e)',
+    bin('vitest'),
+    ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...vitestArgs],
+    {
+      NODE_ENV: 'test',
+      DATABASE_URL: started.url,
+      UPLOADS_DIR: uploads,
+      CHROMIUM_PATH: chromium,
+      CLIENT_DIST: path.join(root, 'dist'),
+      LOG_LEVEL: process.env.LOG_LEVEL ?? 'silent',
+    },
+  );
+  if (existsSync(report)) {
+    const summary = JSON.parse(readFileSync(report, 'utf8'));
+    process.stdout.write(
+      `\nvitest: ${summary.numPassedTests} passed, ${summary.numFailedTests} failed` +
+        (summary.numPendingTests ? `, ${summary.numPendingTests} skipped` : '') +
+        '\n',
+    );
+  }
+
+  if (failures.length) {
+    process.stderr.write(`\nFailed: ${failures.join('; ')}\n`);
+    return 1;
+  }
+  ok('everything passed');
+  return 0;
+}
+
+const onSignal = () => cleanup().then(() => process.exit(130));
+process.on('SIGINT', onSignal);
+process.on('SIGTERM', onSignal);
+
+main()
+  .then(async (code) => {
+    await cleanup();
+    process.exit(code);
+  })
+  .catch(async (error) => {
+    fail(error);
+    await cleanup();
+    process.exit(1);
+  });

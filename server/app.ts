@@ -1,0 +1,107 @@
+import { existsSync } from 'node:fs';
+import path from 'node:path';
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { pinoHttp } from 'pino-http';
+import type { AppContext } from './context';
+import { apiNotFound, errorHandler } from './middleware/error-handler';
+import { authenticate } from './middleware/authenticate';
+import { requireCsrf } from './middleware/csrf';
+import { sessionMiddleware } from './middleware/session';
+import { adminRouter } from './routes/admin.routes';
+import { authRouter } from './routes/auth.routes';
+import { devRouter } from './routes/dev.routes';
+import { healthRouter } from './routes/health.routes';
+import { stylesRouter } from './routes/styles.routes';
+
+/**
+ * Builds the Express app from a context (config, logger, database); it does not listen, so
+ * tests drive it with supertest. Middleware order: security headers, request log, body
+ * parsers, API routers, API 404, the built client, the error handler last.
+ */
+export function createApp(ctx: AppContext): Express {
+  const { config } = ctx;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxy);
+  app.set('query parser', 'extended');
+
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: false,
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          // naive-ui writes its component styles into <style> tags at run time.
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'", 'data:'],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'none'"],
+          frameAncestors: ["'none'"],
+          formAction: ["'self'"],
+          ...(config.secureCookies ? { upgradeInsecureRequests: [] } : {}),
+        },
+      },
+      hsts: config.secureCookies,
+    }),
+  );
+
+  app.use(
+    pinoHttp({
+      logger: ctx.logger,
+      autoLogging: { ignore: (req) => req.url === '/api/health' },
+      customLogLevel: (_req, res, err) =>
+        err || res.statusCode >= 500 ? 'error' : res.statusCode >= 400 ? 'warn' : 'info',
+    }),
+  );
+
+  app.use('/api', express.json({ limit: '256kb' }));
+  app.use('/api', express.urlencoded({ extended: false, limit: '64kb' }));
+
+  app.use('/api/health', healthRouter(ctx));
+
+  const sessions = sessionMiddleware(ctx);
+  ctx.onClose(sessions.close);
+  app.use('/api', sessions.handler, requireCsrf, authenticate(ctx));
+
+  app.use('/api/auth', authRouter(ctx));
+  app.use('/api/admin', adminRouter(ctx));
+  app.use('/api/styles', stylesRouter(ctx));
+  if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
+  app.use('/api', apiNotFound);
+
+  if (config.serveClient) mountClient(app, config.clientDist);
+
+  app.use(errorHandler(config.env === 'development'));
+  return app;
+}
+
+/** Serves the Vite build: hashed assets cached for a year, index.html for every app route. */
+function mountClient(app: Express, dist: string): void {
+  const indexHtml = path.join(dist, 'index.html');
+  app.use(
+    '/assets',
+    express.static(path.join(dist, 'assets'), {
+      immutable: true,
+      maxAge: '365d',
+      index: false,
+      fallthrough: false,
+    }),
+  );
+  app.use(express.static(dist, { index: false, maxAge: '1h' }));
+  app.get('/{*splat}', (req, res, next) => {
+    if (!existsSync(indexHtml)) {
+      res
+        .status(503)
+        .type('text/plain')
+        .send('The client has not been built yet. Run `npm start` (or `npm run build`).');
+      return;
+    }
+    if (!req.accepts('html')) return next();
+    res.setHeader('Cache-Control', 'no-cache');
+    res.sendFile(indexHtml);
+  });
+}

@@ -1,0 +1,62 @@
+import type { Logger } from 'pino';
+import type { AppConfig } from './config';
+import { createDatabase, type DatabaseHandle } from './db/client';
+import { createLimiters, type Limiters } from './lib/rate-limit';
+import { createLogger } from './lib/logger';
+import { LocalMailbox } from './mail/local-mailbox';
+import { Mailer } from './mail/mailer';
+
+/** What the routers and services share: config, logger, database, mail and rate limits. */
+export type AppContext = {
+  config: AppConfig;
+  logger: Logger;
+  database: DatabaseHandle;
+  mailer: Mailer;
+  /** The local mail fake; null in production or when SMTP_URL names a real relay. */
+  mailbox: LocalMailbox | null;
+  limiters: Limiters;
+  /** Registers something to close (timers, stores) before the pool closes. */
+  onClose: (closer: () => Promise<void> | void) => void;
+  /** Closes everything the context opened, in order. */
+  close: () => Promise<void>;
+};
+
+function databaseName(url: string): string {
+  return decodeURIComponent(new URL(url).pathname.replace(/^\//, '')) || 'rindwise';
+}
+
+/** Builds the shared context; starts the local mail fake when no SMTP relay is configured. */
+export async function createContext(
+  config: AppConfig,
+  overrides: Partial<Pick<AppContext, 'logger'>> = {},
+): Promise<AppContext> {
+  const logger = overrides.logger ?? createLogger(config.logLevel);
+  const database = createDatabase(config.databaseUrl, config.databasePoolSize);
+  let mailbox: LocalMailbox | null = null;
+  let smtpUrl = config.smtpUrl;
+  if (!smtpUrl) {
+    if (config.isProduction) throw new Error('SMTP_URL is required in production.');
+    mailbox = new LocalMailbox();
+    const port = await mailbox.start();
+    smtpUrl = `smtp://127.0.0.1:${port}`;
+    logger.debug({ port }, 'local mail fake listening');
+  }
+  const mailer = new Mailer(smtpUrl, config.mailFrom, logger);
+  const limiters = createLimiters(database.pool, databaseName(config.databaseUrl));
+  const closers: Array<() => Promise<void> | void> = [];
+  return {
+    config,
+    logger,
+    database,
+    mailer,
+    mailbox,
+    limiters,
+    onClose: (closer) => closers.push(closer),
+    close: async () => {
+      for (const closer of closers.reverse()) await closer();
+      mailer.close();
+      await mailbox?.stop();
+      await database.close();
+    },
+  };
+}

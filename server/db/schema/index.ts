@@ -1,0 +1,4 @@
+export * from './users';
+export * from './sessions';
+export * from './styles';
+export * from './auth';

@@ -1,0 +1,15 @@
+export type Role = 'member' | 'moderator' | 'admin';
+export type UnitSystem = 'metric' | 'us';
+
+/** The signed-in member, as /api/auth/me returns it. */
+export type MeDto = {
+  id: number;
+  email: string;
+  handle: string;
+  displayName: string;
+  role: Role;
+  units: UnitSystem;
+  remindersEnabled: boolean;
+  emailVerified: boolean;
+  createdAt: string;
+};
