@@ -59,7 +59,9 @@ async function main() {
     ]);
     await stage('Type check: server (tsc)', bin('tsc'), ['--noEmit', '-p', 'tsconfig.server.json']);
   }
-  await ensureClientBuild(root);
+  // A focused run without the browser layer needs no client build.
+  const needsBuild = !quick || vitestArgs.some((arg) => arg.includes('e2e'));
+  if (needsBuild) await ensureClientBuild(root);
 
   const uploads = path.join(tempDir, 'uploads');
   mkdirSync(uploads, { recursive: true });

@@ -2,3 +2,4 @@ export * from './users';
 export * from './sessions';
 export * from './styles';
 export * from './auth';
+export * from './journals';
