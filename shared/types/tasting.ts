@@ -1,0 +1,49 @@
+import type { Defect, FlavourDescriptor } from '../constants/tasting';
+import type { MakerRef } from './journal';
+
+export type TastingDto = {
+  id: number;
+  journalId: number;
+  taster: MakerRef;
+  tastedOn: string;
+  /** Days from the make date to the tasting date. */
+  ageDays: number;
+  overall: number;
+  appearance: number;
+  aroma: number;
+  flavour: number;
+  texture: number;
+  finish: number;
+  descriptors: FlavourDescriptor[];
+  defects: Defect[];
+  notes: string;
+  notesHtml: string;
+  canEdit: boolean;
+  createdAt: string;
+};
+
+/** Mean scores of the tastings that fall in one age band. */
+export type AgeBandDto = {
+  label: string;
+  fromDays: number;
+  toDays: number | null;
+  n: number;
+  means: Record<'overall' | 'appearance' | 'aroma' | 'flavour' | 'texture' | 'finish', number>;
+};
+
+export type CaveWheelDto = {
+  journalId: number;
+  title: string;
+  style: string;
+  makeDate: string;
+  wheelStatus: string;
+  ageDays: number;
+  targetDays: number | null;
+  daysLeft: number | null;
+  readyDate: string | null;
+  /** 0 to 1 of the way to the target. */
+  progress: number | null;
+  conditions: { tempC: number | null; humidityPercent: number | null; rind: string };
+  lastWeighIn: { date: string; massKg: number } | null;
+  heatTreatment: string;
+};
