@@ -1,12 +1,14 @@
+import path from 'node:path';
 import type { Logger } from 'pino';
 import type { AppConfig } from './config';
 import { createDatabase, type DatabaseHandle } from './db/client';
 import { createLimiters, type Limiters } from './lib/rate-limit';
 import { createLogger } from './lib/logger';
+import { LocalStorage, type PhotoStorage } from './lib/storage';
 import { LocalMailbox } from './mail/local-mailbox';
 import { Mailer } from './mail/mailer';
 
-/** What the routers and services share: config, logger, database, mail and rate limits. */
+/** What the routers and services share: config, logger, database, mail, rate limits, storage. */
 export type AppContext = {
   config: AppConfig;
   logger: Logger;
@@ -15,6 +17,8 @@ export type AppContext = {
   /** The local mail fake; null in production or when SMTP_URL names a real relay. */
   mailbox: LocalMailbox | null;
   limiters: Limiters;
+  /** Where photo renditions are stored: UPLOADS_DIR/photos for now (S3 comes later). */
+  storage: PhotoStorage;
   /** Registers something to close (timers, stores) before the pool closes. */
   onClose: (closer: () => Promise<void> | void) => void;
   /** Closes everything the context opened, in order. */
@@ -51,6 +55,7 @@ export async function createContext(
     mailer,
     mailbox,
     limiters,
+    storage: new LocalStorage(path.join(config.uploadsDir, 'photos')),
     onClose: (closer) => closers.push(closer),
     close: async () => {
       for (const closer of closers.reverse()) await closer();
