@@ -12,6 +12,8 @@ import { adminRouter } from './routes/admin.routes';
 import { authRouter } from './routes/auth.routes';
 import { devRouter } from './routes/dev.routes';
 import { healthRouter } from './routes/health.routes';
+import { mediaRouter } from './routes/media.routes';
+import { photosRouter } from './routes/photos.routes';
 import { stylesRouter } from './routes/styles.routes';
 
 /**
@@ -70,9 +72,13 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/auth', authRouter(ctx));
   app.use('/api/admin', adminRouter(ctx));
   app.use('/api/styles', stylesRouter(ctx));
+  // Before the journals router, so /api/journals/:id/photos reaches the photos router.
+  app.use('/api/journals/:id/photos', photosRouter(ctx));
   if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
   app.use('/api', apiNotFound);
 
+  // Photo renditions: no session, no CSRF; before the client so a missing photo is a 404.
+  app.use('/media', mediaRouter(ctx));
   if (config.serveClient) mountClient(app, config.clientDist);
 
   app.use(errorHandler(config.env === 'development'));
