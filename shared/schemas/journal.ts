@@ -250,3 +250,29 @@ export const journalListQuerySchema = z.object({
 });
 
 export type JournalListQuery = z.infer<typeof journalListQuerySchema>;
+
+/** A batch of readings from the vat's offline queue; each is stored once by its client id. */
+export const readingBatchSchema = z.object({
+  readings: z
+    .array(readingInputSchema)
+    .min(1, 'Send at least one reading.')
+    .max(500, 'Send at most 500 readings at a time.'),
+});
+
+export const JOURNAL_EXPORT_TABLES = [
+  'journals',
+  'ingredients',
+  'steps',
+  'press-stages',
+  'weigh-ins',
+  'readings',
+  'photos',
+] as const;
+export type JournalExportTable = (typeof JOURNAL_EXPORT_TABLES)[number];
+
+/** The export of a member's own journals: JSON with everything, or CSV one table at a time. */
+export const journalExportQuerySchema = z.object({
+  format: z.enum(['csv', 'json'], { error: 'Choose csv or json.' }).default('json'),
+  /** CSV only: journals (one row each, the default) or one of the child tables. */
+  table: z.enum(JOURNAL_EXPORT_TABLES, { error: 'Choose a table to export.' }).default('journals'),
+});
