@@ -12,6 +12,7 @@ import { adminRouter } from './routes/admin.routes';
 import { authRouter } from './routes/auth.routes';
 import { devRouter } from './routes/dev.routes';
 import { healthRouter } from './routes/health.routes';
+import { journalsRouter } from './routes/journals.routes';
 import { mediaRouter } from './routes/media.routes';
 import { photosRouter } from './routes/photos.routes';
 import { stylesRouter } from './routes/styles.routes';
@@ -74,6 +75,7 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/styles', stylesRouter(ctx));
   // Before the journals router, so /api/journals/:id/photos reaches the photos router.
   app.use('/api/journals/:id/photos', photosRouter(ctx));
+  app.use('/api/journals', journalsRouter(ctx));
   if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
   app.use('/api', apiNotFound);
 
