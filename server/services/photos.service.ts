@@ -33,7 +33,7 @@ import {
 } from '../repositories/photos.repository';
 
 const NO_PHOTOS_ADDED = 'No photos were added: fix or remove it and upload the others again.';
-const FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, HEIF, TIFF or GIF';
+const FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, TIFF or GIF';
 
 /** Raster formats we decode; sharp also reads SVG (and more), which must never get through. */
 const ALLOWED_FORMATS = new Set(['jpeg', 'png', 'webp', 'heif', 'tiff', 'gif']);
@@ -112,12 +112,8 @@ export function sniffImage(head: Buffer): string | null {
   // ISO base media (HEIF, AVIF): a box of type "ftyp" whose brand is an image brand.
   if (ascii(4, 8) === 'ftyp') {
     const brand = ascii(8, 12);
-    if (
-      ['avif', 'avis', 'heic', 'heix', 'heim', 'heis', 'hevc', 'hevx', 'mif1', 'msf1'].includes(
-        brand,
-      )
-    )
-      return 'heif';
+    if (['heic', 'heix', 'heim', 'heis', 'hevc', 'hevx'].includes(brand)) return 'heic';
+    if (['avif', 'avis', 'mif1', 'msf1'].includes(brand)) return 'heif';
   }
   return null;
 }
@@ -154,6 +150,14 @@ async function checkFile(file: UploadedFile, index: number): Promise<CheckedFile
     );
   const sniffed = sniffImage(await readHead(file.path));
   if (!sniffed) throw notAnImage();
+  if (sniffed === 'heic') {
+    // sharp's prebuilt libvips decodes AV1 HEIF (AVIF) but has no HEVC decoder.
+    throw new PhotoRejectedError(
+      'HEIC_NOT_SUPPORTED',
+      index,
+      `${file.name} is a HEIC photo, which we cannot read yet: export or share it as JPEG and upload that.`,
+    );
+  }
   let meta: Metadata;
   try {
     // Header only, so no pixel limit here: it lets us say how large the image is.

@@ -17,8 +17,7 @@ export const PHOTO_LIMITS = {
 export const PHOTO_FIELD = 'photos';
 
 /** What an <input type="file" accept> may offer; the server sniffs the bytes regardless. */
-export const PHOTO_ACCEPT =
-  'image/jpeg,image/png,image/webp,image/avif,image/heic,image/heif,image/tiff,image/gif';
+export const PHOTO_ACCEPT = 'image/jpeg,image/png,image/webp,image/avif,image/tiff,image/gif';
 
 export const photoCaptionSchema = z
   .string({ error: 'Write the caption as text.' })

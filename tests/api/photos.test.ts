@@ -237,6 +237,17 @@ describe('POST /api/journals/:id/photos: what is refused', () => {
     expect(await photoRows(journalId)).toHaveLength(0);
   });
 
+  it('says plainly that HEIC photos cannot be read yet', async () => {
+    const heic = Buffer.concat([
+      Buffer.from('00000018667479706865696300000000', 'hex'), // ftyp box, brand "heic"
+      randomBytes(2000),
+    ]);
+    const res = await upload(s, journalId, [{ data: heic, name: 'IMG_0042.HEIC' }]);
+    expect(res.status).toBe(400);
+    expect(res.body.error.code).toBe('HEIC_NOT_SUPPORTED');
+    expect(res.body.error.message).toMatch(/as JPEG/);
+  });
+
   it('refuses a 20000 × 20000 PNG with a message about its size', { timeout: 60_000 }, async () => {
     const huge = await sharp({
       create: { width: 20000, height: 20000, channels: 3, background: '#e8c872' },
@@ -540,7 +551,7 @@ describe('POST /api/journals/:id/photos: stored renditions', () => {
     expect([meta.width, meta.height, meta.orientation]).toEqual([320, 640, undefined]);
   });
 
-  it('takes PNG, WebP and GIF as well as JPEG', async () => {
+  it('takes PNG, WebP, GIF, AVIF and TIFF as well as JPEG', async () => {
     const base = sharp({
       create: { width: 500, height: 400, channels: 4, background: '#ffd70080' },
     });
@@ -549,9 +560,11 @@ describe('POST /api/journals/:id/photos: stored renditions', () => {
       { data: await base.clone().png().toBuffer(), name: 'a.png' },
       { data: await base.clone().webp().toBuffer(), name: 'b.webp' },
       { data: await base.clone().gif().toBuffer(), name: 'c.gif' },
+      { data: await base.clone().avif().toBuffer(), name: 'd.avif' },
+      { data: await base.clone().tiff().toBuffer(), name: 'e.tiff' },
     ]);
     expect(res.status).toBe(201);
-    expect(res.body.photos).toHaveLength(3);
+    expect(res.body.photos).toHaveLength(5);
   });
 });
 
