@@ -102,6 +102,11 @@ export async function findJournalRef(db: Db, id: number) {
   return row;
 }
 
+/** Locks a journal row until the transaction ends, so writes to one journal run in turn. */
+export async function lockJournal(db: Db, id: number): Promise<void> {
+  await db.select({ id: journals.id }).from(journals).where(eq(journals.id, id)).for('update');
+}
+
 /** Inserts a journal row; resolves with its id. */
 export async function insertJournal(db: Db, row: NewJournalRow): Promise<number> {
   const [result] = await db.insert(journals).values(row).$returningId();

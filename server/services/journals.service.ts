@@ -44,6 +44,7 @@ import {
   listCoverPhotos,
   listJournalChildren,
   listJournals,
+  lockJournal,
   replaceJournalChildren,
   updateJournal,
   type Db,
@@ -362,10 +363,13 @@ export async function updateJournalDocument(
   input: JournalInput,
 ): Promise<JournalDto> {
   const db = ctx.database.db;
-  const current = await ownedJournal(db, member, id);
+  await ownedJournal(db, member, id);
   refuseUnverifiedPublish(member, input);
   const styleId = await styleIdFor(db, input.styleSlug);
   await db.transaction(async (tx) => {
+    await lockJournal(tx, id);
+    const current = await findJournalById(tx, id);
+    if (!current) throw notFound();
     const { readings } = await listJournalChildren(tx, [id]);
     await updateJournal(tx, id, {
       ...documentColumns(input, styleId),
@@ -493,7 +497,9 @@ export async function copyJournal(
 }
 
 // Re-derives every metric_* column from what is stored (after a reading or a weigh-in).
-async function refreshMetrics(db: Db, journal: JournalRow): Promise<void> {
+async function refreshMetrics(db: Db, id: number): Promise<void> {
+  const journal = await findJournalById(db, id);
+  if (!journal) return;
   const children = await listJournalChildren(db, [journal.id]);
   const metrics = journalMetrics(figuresInputOf(journal, children));
   await updateJournal(db, journal.id, metricColumns(metrics));
@@ -511,9 +517,10 @@ export async function addReadings(
   readings: ReadingInput[],
 ): Promise<{ readings: ReadingDto[]; created: number }> {
   const db = ctx.database.db;
-  const journal = await ownedJournal(db, member, id);
+  await ownedJournal(db, member, id);
   const ids = [...new Set(readings.map((r) => r.id.toLowerCase()))];
   const created = await db.transaction(async (tx) => {
+    await lockJournal(tx, id);
     const before = await findReadingsByIds(tx, ids);
     if (before.some((r) => r.journalId !== id)) {
       throw new ConflictError(
@@ -539,7 +546,7 @@ export async function addReadings(
         note: r.note,
       })),
     );
-    if (fresh.size) await refreshMetrics(tx, journal);
+    if (fresh.size) await refreshMetrics(tx, id);
     return fresh.size;
   });
   const stored = new Map((await findReadingsByIds(db, ids)).map((r) => [r.id, r]));
@@ -560,15 +567,16 @@ export async function addWeighIn(
   weighIn: WeighInInput,
 ): Promise<JournalDto> {
   const db = ctx.database.db;
-  const journal = await ownedJournal(db, member, id);
+  await ownedJournal(db, member, id);
   await db.transaction(async (tx) => {
+    await lockJournal(tx, id);
     await insertWeighIn(tx, {
       journalId: id,
       date: weighIn.date,
       massKg: weighIn.massKg,
       note: weighIn.note,
     });
-    await refreshMetrics(tx, journal);
+    await refreshMetrics(tx, id);
   });
   return getJournal(ctx, member, id);
 }
