@@ -28,6 +28,14 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Journal' },
   },
   {
+    // The scorecard; ?invite=CODE when a friend scores the maker's wheel, ?edit=ID to change one.
+    path: '/journals/:id(\\d+)/taste',
+    name: 'taste',
+    component: () => import('../views/tastings/TastingFormView.vue'),
+    props: true,
+    meta: { requiresAuth: true, title: 'Score a wheel' },
+  },
+  {
     path: '/cave',
     name: 'cave',
     component: () => import('../views/cave/CaveView.vue'),
