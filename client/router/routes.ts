@@ -28,6 +28,14 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Journal' },
   },
   {
+    // At the vat: the make-day view (step timers, readings, ramp, press) for the journal's maker.
+    path: '/journals/:id(\\d+)/vat',
+    name: 'vat',
+    component: () => import('../views/vat/VatView.vue'),
+    props: true,
+    meta: { requiresAuth: true, title: 'At the vat' },
+  },
+  {
     // The scorecard; ?invite=CODE when a friend scores the maker's wheel, ?edit=ID to change one.
     path: '/journals/:id(\\d+)/taste',
     name: 'taste',
