@@ -311,7 +311,8 @@ export async function listJournalsFor(ctx: AppContext, viewer: Viewer, query: Jo
     if (!filter.styleIds.length) return emptyPage(query);
   }
   if (query.maker) {
-    const maker = await findUserByHandle(db, query.maker);
+    // "@handle" as members write it in notes and titles is the same maker.
+    const maker = await findUserByHandle(db, query.maker.replace(/^@/, ''));
     if (!maker) return emptyPage(query);
     filter.makerId = maker.id;
   }
