@@ -38,6 +38,11 @@ async function fetchCsrfToken(): Promise<string> {
   return csrfToken;
 }
 
+/** The session's CSRF token, fetched once; for requests sent outside `http` (upload progress). */
+export async function getCsrfToken(): Promise<string> {
+  return csrfToken ?? (await fetchCsrfToken());
+}
+
 /** Forgets the CSRF token, e.g. after sign-in or sign-out when the session changes. */
 export function resetCsrfToken(): void {
   csrfToken = null;
