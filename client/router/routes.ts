@@ -21,6 +21,25 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Discover' },
   },
   {
+    path: '/journals/mine',
+    name: 'my-journals',
+    component: () => import('../views/journals/MyJournalsView.vue'),
+    meta: { requiresAuth: true, title: 'My journals' },
+  },
+  {
+    path: '/journals/new',
+    name: 'journal-new',
+    component: () => import('../views/journals/JournalEditView.vue'),
+    meta: { requiresAuth: true, title: 'New journal' },
+  },
+  {
+    path: '/journals/:id(\\d+)/edit',
+    name: 'journal-edit',
+    component: () => import('../views/journals/JournalEditView.vue'),
+    props: true,
+    meta: { requiresAuth: true, title: 'Edit journal' },
+  },
+  {
     path: '/journals/:id(\\d+)',
     name: 'journal',
     component: () => import('../views/journals/JournalView.vue'),
