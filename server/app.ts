@@ -10,6 +10,9 @@ import { requireCsrf } from './middleware/csrf';
 import { sessionMiddleware } from './middleware/session';
 import { adminRouter } from './routes/admin.routes';
 import { authRouter } from './routes/auth.routes';
+import { calendarFeedRouter, caveRouter } from './routes/cave.routes';
+import { compareRouter } from './routes/compare.routes';
+import { journalTastingsRouter, tastingsRouter } from './routes/tastings.routes';
 import { devRouter } from './routes/dev.routes';
 import { healthRouter } from './routes/health.routes';
 import { journalsRouter } from './routes/journals.routes';
@@ -75,7 +78,12 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api/styles', stylesRouter(ctx));
   // Before the journals router, so /api/journals/:id/photos reaches the photos router.
   app.use('/api/journals/:id/photos', photosRouter(ctx));
+  app.use('/api/journals/:id', journalTastingsRouter(ctx));
   app.use('/api/journals', journalsRouter(ctx));
+  app.use('/api/tastings', tastingsRouter(ctx));
+  app.use('/api/cave', caveRouter(ctx));
+  app.use('/api/calendar', calendarFeedRouter(ctx));
+  app.use('/api/compare', compareRouter(ctx));
   if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
   app.use('/api', apiNotFound);
 

@@ -3,6 +3,7 @@ import { createServer } from 'node:http';
 import { createApp } from './app';
 import { ConfigError, loadConfig } from './config';
 import { createContext } from './context';
+import { startJobs } from './jobs/scheduler';
 
 let config;
 try {
@@ -20,6 +21,7 @@ try {
 const ctx = await createContext(config);
 const app = createApp(ctx);
 const server = createServer(app);
+const stopJobs = config.jobsEnabled ? startJobs(ctx) : () => {};
 
 server.on('error', (error: NodeJS.ErrnoException) => {
   ctx.logger.fatal(
@@ -42,6 +44,7 @@ async function shutdown(signal: string) {
   ctx.logger.info({ signal }, 'shutting down');
   const forced = setTimeout(() => process.exit(1), 10_000);
   forced.unref();
+  stopJobs();
   server.close();
   server.closeIdleConnections();
   try {

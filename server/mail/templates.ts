@@ -77,4 +77,37 @@ export const mailTemplates = {
       'The password of your Rindwise account was just changed, and your other sessions were signed out.',
       'If you did not do this, reset your password at once with "Forgot password" on the sign-in page.',
     ]),
+
+  wheelReady: (
+    to: string,
+    name: string,
+    title: string,
+    makeDate: string,
+    targetDays: number,
+    url: string,
+  ) =>
+    layout(
+      to,
+      `Ready to taste: ${title}`,
+      [
+        `Hello ${name},`,
+        `Your wheel "${title}", made on ${makeDate}, has reached its aging target of ${targetDays} days.`,
+        'When you open it, score it while the taste is fresh: overall liking and each attribute, with friends if they are there.',
+        'Before serving a raw-milk cheese, check that it has aged at least 60 days and follow your local food codes.',
+        'You can turn these reminders off in your account settings.',
+      ],
+      { label: 'Score this wheel', url },
+    ),
+
+  wheelCheck: (to: string, name: string, title: string, url: string) =>
+    layout(
+      to,
+      `Time to check: ${title}`,
+      [
+        `Hello ${name},`,
+        `You asked to be reminded to check "${title}" today: look at the rind, turn the wheel, and record a weigh-in if you can.`,
+        'You can turn these reminders off in your account settings.',
+      ],
+      { label: 'Open the journal', url },
+    ),
 };

@@ -3,3 +3,4 @@ export * from './sessions';
 export * from './styles';
 export * from './auth';
 export * from './journals';
+export * from './tastings';

@@ -28,6 +28,8 @@ export const users = mysqlTable(
     units: mysqlEnum('units', UNIT_SYSTEMS).notNull().default('metric'),
     remindersEnabled: boolean('reminders_enabled').notNull().default(true),
     bio: text('bio'),
+    /** Bumped when the member resets their calendar address (the address is signed with it). */
+    calendarVersion: int('calendar_version').notNull().default(0),
     disabledAt: datetime('disabled_at', { mode: 'date' }),
     createdAt: datetime('created_at', { mode: 'date' })
       .notNull()

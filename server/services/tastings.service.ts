@@ -1,0 +1,225 @@
+import { randomBytes } from 'node:crypto';
+import type { z } from 'zod';
+import { SCORE_ATTRIBUTES } from '../../shared/constants/tasting';
+import type { tastingInputSchema, tastingUpdateSchema } from '../../shared/schemas/tasting';
+import { ageInDays } from '../../shared/trade/aging';
+import { mean } from '../../shared/trade/stats';
+import type { AgeBandDto } from '../../shared/types/tasting';
+import type { AppContext } from '../context';
+import { AppError, ForbiddenError, NotFoundError } from '../lib/errors';
+import { hashToken } from '../lib/tokens';
+import type { AuthMember } from '../middleware/authenticate';
+import { updateJournal } from '../repositories/journals.repository';
+import {
+  deleteTasting,
+  findJournalForTasting,
+  findLiveInvite,
+  findTasting,
+  insertInvite,
+  insertTasting,
+  listTastingsForJournal,
+  refreshJournalTastingStats,
+  updateTasting,
+  type JournalForTasting,
+} from '../repositories/tastings.repository';
+
+const INVITE_TTL_DAYS = 14;
+const isStaff = (m?: AuthMember) => m?.role === 'moderator' || m?.role === 'admin';
+
+/** Age bands for the mean scores on a journal (days from the make date). */
+export const AGE_BANDS: { label: string; fromDays: number; toDays: number | null }[] = [
+  { label: 'Up to 1 month', fromDays: 0, toDays: 30 },
+  { label: '1 to 2 months', fromDays: 31, toDays: 60 },
+  { label: '2 to 3 months', fromDays: 61, toDays: 90 },
+  { label: '3 to 6 months', fromDays: 91, toDays: 182 },
+  { label: '6 to 12 months', fromDays: 183, toDays: 365 },
+  { label: 'Over a year', fromDays: 366, toDays: null },
+];
+
+/**
+ * The journal if the viewer may read it: the owner always; staff always; others only a
+ * published, unhidden journal that is public or unlisted. Otherwise 404, so private
+ * journals and drafts do not reveal that they exist.
+ */
+export async function readableJournalForTasting(
+  ctx: AppContext,
+  viewer: AuthMember | undefined,
+  journalId: number,
+): Promise<JournalForTasting> {
+  const journal = await findJournalForTasting(ctx.database.db, journalId);
+  const readable =
+    journal &&
+    (journal.userId === viewer?.id ||
+      isStaff(viewer) ||
+      (journal.status === 'published' &&
+        journal.hiddenAt === null &&
+        journal.visibility !== 'private'));
+  if (!journal || !readable)
+    throw new NotFoundError('JOURNAL_NOT_FOUND', 'No journal with that id, or it is private.');
+  return journal;
+}
+
+/** Means of each score per age band, for bands that hold at least one tasting. */
+export function meansByAgeBand(
+  rows: {
+    ageDays: number;
+    overall: number;
+    appearance: number;
+    aroma: number;
+    flavour: number;
+    texture: number;
+    finish: number;
+  }[],
+): AgeBandDto[] {
+  return AGE_BANDS.flatMap((band) => {
+    const inBand = rows.filter(
+      (r) => r.ageDays >= band.fromDays && (band.toDays === null || r.ageDays <= band.toDays),
+    );
+    if (!inBand.length) return [];
+    const means = Object.fromEntries(
+      SCORE_ATTRIBUTES.map((a) => [a, Math.round(mean(inBand.map((r) => r[a])) * 100) / 100]),
+    ) as AgeBandDto['means'];
+    return [{ ...band, n: inBand.length, means }];
+  });
+}
+
+/** Every tasting of a journal the viewer can read, with the means per age band. */
+export async function listJournalTastings(
+  ctx: AppContext,
+  viewer: AuthMember | undefined,
+  journalId: number,
+) {
+  await readableJournalForTasting(ctx, viewer, journalId);
+  const rows = await listTastingsForJournal(ctx.database.db, journalId, {
+    includeHiddenFor: isStaff(viewer) ? 'all' : viewer?.id,
+  });
+  const visible = rows.filter((r) => r.tasting.hiddenAt === null).map((r) => r.tasting);
+  return { rows, bands: meansByAgeBand(visible) };
+}
+
+function checkDates(journal: JournalForTasting, tastedOn: string): number {
+  const age = ageInDays(journal.makeDate, tastedOn);
+  if (age < 0) {
+    throw new AppError(400, 'VALIDATION_FAILED', 'Some fields need attention.', {
+      tastedOn: `The wheel was made on ${journal.makeDate}: a tasting cannot come before it.`,
+    });
+  }
+  if (ageInDays(new Date(), tastedOn) > 1) {
+    throw new AppError(400, 'VALIDATION_FAILED', 'Some fields need attention.', {
+      tastedOn: 'The tasting date is in the future.',
+    });
+  }
+  return age;
+}
+
+/**
+ * Adds a scorecard. The owner may always score their wheel; another verified member needs a
+ * live invite for this journal (the link handed out at a meeting). The owner's first tasting
+ * marks the wheel opened.
+ */
+export async function addTasting(
+  ctx: AppContext,
+  member: AuthMember,
+  journalId: number,
+  input: z.infer<typeof tastingInputSchema>,
+): Promise<number> {
+  const db = ctx.database.db;
+  const journal = await readableJournalForTasting(ctx, member, journalId);
+  const isOwner = journal.userId === member.id;
+  if (!isOwner) {
+    const invite = input.invite
+      ? await findLiveInvite(db, journalId, hashToken(input.invite))
+      : undefined;
+    if (!invite) {
+      throw new ForbiddenError(
+        'INVITE_REQUIRED',
+        'Only the maker, or members invited to the tasting with a link from the maker, can score this wheel.',
+      );
+    }
+  }
+  const ageDays = checkDates(journal, input.tastedOn);
+  const id = await insertTasting(db, {
+    journalId,
+    tasterId: member.id,
+    tastedOn: input.tastedOn,
+    ageDays,
+    overall: input.overall,
+    appearance: input.appearance,
+    aroma: input.aroma,
+    flavour: input.flavour,
+    texture: input.texture,
+    finish: input.finish,
+    descriptors: [...new Set(input.descriptors)],
+    defects: [...new Set(input.defects)],
+    notes: input.notes,
+  });
+  await refreshJournalTastingStats(db, journalId);
+  if (isOwner && ['making', 'pressing', 'drying', 'aging'].includes(journal.wheelStatus)) {
+    await updateJournal(db, journalId, { wheelStatus: 'opened' });
+  }
+  return id;
+}
+
+async function editableTasting(ctx: AppContext, member: AuthMember, id: number) {
+  const found = await findTasting(ctx.database.db, id);
+  if (!found) throw new NotFoundError('TASTING_NOT_FOUND', 'No tasting with that id.');
+  if (found.tasting.tasterId !== member.id && !isStaff(member)) {
+    throw new ForbiddenError(
+      'NOT_YOUR_TASTING',
+      'Only the taster (or a moderator) can change this tasting.',
+    );
+  }
+  return found;
+}
+
+/** Changes a tasting (its taster, moderators, admins); the age follows a new date. */
+export async function changeTasting(
+  ctx: AppContext,
+  member: AuthMember,
+  id: number,
+  patch: z.infer<typeof tastingUpdateSchema>,
+): Promise<number> {
+  const db = ctx.database.db;
+  const { tasting } = await editableTasting(ctx, member, id);
+  const set: Parameters<typeof updateTasting>[2] = { ...patch };
+  if (patch.descriptors) set.descriptors = [...new Set(patch.descriptors)];
+  if (patch.defects) set.defects = [...new Set(patch.defects)];
+  if (patch.tastedOn) {
+    const journal = await findJournalForTasting(db, tasting.journalId);
+    set.ageDays = checkDates(journal!, patch.tastedOn);
+  }
+  await updateTasting(db, id, set);
+  await refreshJournalTastingStats(db, tasting.journalId);
+  return tasting.journalId;
+}
+
+/** Deletes a tasting (its taster, moderators, admins). */
+export async function removeTasting(
+  ctx: AppContext,
+  member: AuthMember,
+  id: number,
+): Promise<void> {
+  const { tasting } = await editableTasting(ctx, member, id);
+  await deleteTasting(ctx.database.db, id);
+  await refreshJournalTastingStats(ctx.database.db, tasting.journalId);
+}
+
+/** Makes a tasting invite link for the owner's wheel, valid for two weeks. */
+export async function createInvite(ctx: AppContext, member: AuthMember, journalId: number) {
+  const journal = await readableJournalForTasting(ctx, member, journalId);
+  if (journal.userId !== member.id)
+    throw new ForbiddenError('NOT_YOUR_JOURNAL', 'Only the maker can invite tasters.');
+  const code = randomBytes(16).toString('base64url');
+  const expiresAt = new Date(Date.now() + INVITE_TTL_DAYS * 86_400_000);
+  await insertInvite(ctx.database.db, {
+    journalId,
+    createdBy: member.id,
+    codeHash: hashToken(code),
+    expiresAt,
+  });
+  return {
+    code,
+    expiresAt: expiresAt.toISOString(),
+    url: `${ctx.config.publicUrl}/journals/${journalId}/taste?invite=${encodeURIComponent(code)}`,
+  };
+}
