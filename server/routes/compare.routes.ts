@@ -1,8 +1,8 @@
 import { Router } from 'express';
-import { compareQuerySchema } from '../../shared/schemas/compare';
+import { compareJournalsQuerySchema, compareQuerySchema } from '../../shared/schemas/compare';
 import type { AppContext } from '../context';
 import { validate, valid } from '../middleware/validate';
-import { compare } from '../services/compare.service';
+import { compare, compareJournals } from '../services/compare.service';
 
 /** /api/compare: relate a make parameter to an outcome across the community. */
 export function compareRouter(ctx: AppContext): Router {
@@ -10,6 +10,12 @@ export function compareRouter(ctx: AppContext): Router {
   router.get('/', validate('query', compareQuerySchema), async (req, res) => {
     res.setHeader('Cache-Control', 'no-store');
     res.json(await compare(ctx, req.member, valid(res, 'query', compareQuerySchema)));
+  });
+  router.get('/journals', validate('query', compareJournalsQuerySchema), async (req, res) => {
+    res.setHeader('Cache-Control', 'no-store');
+    res.json(
+      await compareJournals(ctx, req.member, valid(res, 'query', compareJournalsQuerySchema).ids),
+    );
   });
   return router;
 }

@@ -3,11 +3,14 @@ import { HEAT_TREATMENT_LABELS, RIND_LABELS, SPECIES_LABELS } from '../../shared
 import { STYLES } from '../../shared/constants/styles';
 import type { CompareQuery } from '../../shared/schemas/compare';
 import { groupSummaries, linearRegression } from '../../shared/trade/stats';
-import type { CompareResultDto } from '../../shared/types/compare';
+import type { CompareResultDto, SideBySideDto, SideBySideRowDto } from '../../shared/types/compare';
 import type { AppContext } from '../context';
 import type { AuthMember } from '../middleware/authenticate';
 import { comparePoints, type CompareFilter } from '../repositories/compare.repository';
-import { findStyleIdsBySlugs } from '../repositories/journals.repository';
+import { findJournalById, findStyleIdsBySlugs } from '../repositories/journals.repository';
+import { listTastingsForJournal } from '../repositories/tastings.repository';
+import { getJournal } from './journals.service';
+import { AGE_BANDS, meansByAgeBand } from './tastings.service';
 import { findUserByHandle } from '../repositories/users.repository';
 
 const CATEGORY_LABELS: Record<string, Record<string, string>> = {
@@ -111,5 +114,158 @@ export async function compare(
         }
       : null,
     groups: [],
+  };
+}
+
+type Row = SideBySideRowDto;
+
+const sameValues = (values: (number | string | null)[]) => {
+  const present = values.map((v) => (typeof v === 'number' ? Math.round(v * 1000) / 1000 : v));
+  return present.every((v) => v === present[0]);
+};
+
+/**
+ * Two to four journals side by side: every parameter and derived figure (SI values; the
+ * client converts), with the rows that differ marked, and the mean overall liking of each at
+ * matched age bands. Each journal must be readable by the viewer (404 otherwise).
+ */
+export async function compareJournals(
+  ctx: AppContext,
+  viewer: AuthMember | undefined,
+  ids: number[],
+): Promise<SideBySideDto> {
+  const dtos = await Promise.all(ids.map((id) => getJournal(ctx, viewer, id)));
+  const rows = await Promise.all(ids.map((id) => findJournalById(ctx.database.db, id)));
+  const bands = await Promise.all(
+    ids.map(async (id) =>
+      meansByAgeBand(
+        (await listTastingsForJournal(ctx.database.db, id))
+          .filter((r) => r.tasting.hiddenAt === null)
+          .map((r) => r.tasting),
+      ),
+    ),
+  );
+  const line = (
+    key: string,
+    label: string,
+    unit: string | null,
+    kind: string,
+    pick: (i: number) => number | string | null,
+  ): Row => {
+    const values = ids.map((_, i) => pick(i));
+    return { key, label, unit, kind, values, differs: !sameValues(values) };
+  };
+  const j = (i: number) => dtos[i];
+  const m = (i: number) => rows[i]!;
+  const table: Row[] = [
+    line('style', 'Style', null, 'text', (i) => j(i).style.name),
+    line('makeDate', 'Make date', null, 'date', (i) => j(i).makeDate),
+    line('milkVolume', 'Milk', 'L', 'volume', (i) => j(i).milk.volumeL),
+    line('species', 'Milk from', null, 'text', (i) => SPECIES_LABELS[j(i).milk.species]),
+    line(
+      'heatTreatment',
+      'Heat treatment',
+      null,
+      'text',
+      (i) => HEAT_TREATMENT_LABELS[j(i).milk.heatTreatment],
+    ),
+    line('fat', 'Fat', '%', 'plain', (i) => j(i).milk.fatPercent),
+    line('protein', 'Protein', '%', 'plain', (i) => j(i).milk.proteinPercent),
+    line('saltPerLitre', 'Salt per litre of milk', 'g/L', 'plain', (i) => m(i).metricSaltGPerL),
+    line(
+      'saltPercent',
+      'Salt as % of the green cheese',
+      '%',
+      'plain',
+      (i) => m(i).metricSaltPercent,
+    ),
+    line(
+      'colourPerLitre',
+      'Colouring per litre of milk',
+      'mL/L',
+      'plain',
+      (i) => m(i).metricColourMlPerL,
+    ),
+    line(
+      'calciumChloridePerLitre',
+      'Calcium chloride per litre',
+      'mL/L',
+      'plain',
+      (i) => m(i).metricCalciumChlorideMlPerL,
+    ),
+    line(
+      'culturePerLitre',
+      'Culture per litre of milk',
+      'g/L',
+      'plain',
+      (i) => m(i).metricCultureGPerL,
+    ),
+    line(
+      'coagulationTemp',
+      'Coagulation temperature',
+      '°C',
+      'temperature',
+      (i) => m(i).metricCoagulationTempC,
+    ),
+    line('cookTemp', 'Cooking temperature', '°C', 'temperature', (i) => m(i).metricCookTempC),
+    line(
+      'cookRamp',
+      'Fastest heating ramp',
+      '°C per 5 min',
+      'temperature-rate',
+      (i) => m(i).metricCookRampCPer5Min,
+    ),
+    line(
+      'pressMaxKpa',
+      'Highest pressure on the curd',
+      'kPa',
+      'pressure',
+      (i) => m(i).metricPressMaxKpa,
+    ),
+    line('rindTreatment', 'Rind', null, 'text', (i) => RIND_LABELS[j(i).rindTreatment]),
+    line('dryingDays', 'Drying days', 'days', 'plain', (i) => j(i).dryingDays),
+    line('agingTarget', 'Aging target', 'days', 'plain', (i) => j(i).aging.targetDays),
+    line('caveTemp', 'Cave temperature', '°C', 'temperature', (i) => j(i).aging.tempC),
+    line('caveHumidity', 'Cave humidity', '%', 'plain', (i) => j(i).aging.humidityPercent),
+    line(
+      'yieldPercent',
+      'Yield',
+      '% of milk weight',
+      'plain',
+      (i) => j(i).derived.yield.actualPercent,
+    ),
+    line(
+      'predictedYield',
+      'Predicted yield (Van Slyke)',
+      'kg per 100 kg milk',
+      'plain',
+      (i) => j(i).derived.yield.predictedKgPer100Kg,
+    ),
+    line(
+      'moistureLoss',
+      'Weight lost since the press',
+      '%',
+      'plain',
+      (i) => j(i).derived.moisture.lossSinceGreenPercent,
+    ),
+    line('tastings', 'Tastings', null, 'plain', (i) => j(i).tastingCount),
+    line('meanOverall', 'Mean overall liking', '1–9', 'plain', (i) => j(i).meanOverall),
+  ];
+  const bandLabels = AGE_BANDS.map((b) => b.label).filter((label) =>
+    bands.some((list) => list.some((b) => b.label === label)),
+  );
+  return {
+    journals: dtos.map((d) => ({
+      id: d.id,
+      title: d.title,
+      maker: d.maker.handle,
+      style: d.style.name,
+      makeDate: d.makeDate,
+    })),
+    rows: table,
+    scoresByAge: bandLabels.map((band) => ({
+      band,
+      values: bands.map((list) => list.find((b) => b.label === band)?.means.overall ?? null),
+    })),
   };
 }

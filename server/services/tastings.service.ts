@@ -10,6 +10,7 @@ import { AppError, ForbiddenError, NotFoundError } from '../lib/errors';
 import { hashToken } from '../lib/tokens';
 import type { AuthMember } from '../middleware/authenticate';
 import { updateJournal } from '../repositories/journals.repository';
+import { accessTo } from './journals.service';
 import {
   deleteTasting,
   findJournalForTasting,
@@ -37,9 +38,8 @@ export const AGE_BANDS: { label: string; fromDays: number; toDays: number | null
 ];
 
 /**
- * The journal if the viewer may read it: the owner always; staff always; others only a
- * published, unhidden journal that is public or unlisted. Otherwise 404, so private
- * journals and drafts do not reveal that they exist.
+ * The journal if the viewer may read it (the journals' own rule, accessTo); otherwise 404, so
+ * private journals and drafts do not reveal that they exist.
  */
 export async function readableJournalForTasting(
   ctx: AppContext,
@@ -47,15 +47,9 @@ export async function readableJournalForTasting(
   journalId: number,
 ): Promise<JournalForTasting> {
   const journal = await findJournalForTasting(ctx.database.db, journalId);
-  const readable =
-    journal &&
-    (journal.userId === viewer?.id ||
-      isStaff(viewer) ||
-      (journal.status === 'published' &&
-        journal.hiddenAt === null &&
-        journal.visibility !== 'private'));
-  if (!journal || !readable)
+  if (!journal || accessTo(journal, viewer) === 'none') {
     throw new NotFoundError('JOURNAL_NOT_FOUND', 'No journal with that id, or it is private.');
+  }
   return journal;
 }
 

@@ -4,6 +4,7 @@ import { COMPARE_PARAMETER_KEYS } from '../../shared/constants/compare';
 import { tastings } from '../../server/db/schema/tastings';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { createMember, signedIn } from '../support/factories';
+import { postJournal, publicJournalDocument } from '../support/journal-factory';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
 
 let t: TestApp;
@@ -192,5 +193,43 @@ describe('GET /api/compare', () => {
     expect(res.body.points).toEqual([
       expect.objectContaining({ journalId: id, x: 90, y: 7, tastingId: null }),
     ]);
+  });
+});
+
+describe('GET /api/compare/journals', () => {
+  it('refuses fewer than two, more than four, repeated or malformed ids', async () => {
+    for (const ids of ['1', '1,2,3,4,5', '3,3', 'a,b', '']) {
+      const res = await visitor(t.app).get(`/api/compare/journals?ids=${ids}`);
+      expect(res.status, ids).toBe(400);
+      expect(
+        Object.keys(res.body.error.fields).some((k) => k.startsWith('ids')),
+        ids,
+      ).toBe(true);
+    }
+  });
+
+  it('puts two journals side by side, marks what differs, and hides private journals (404)', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    const a = await postJournal(maker, { ...publicJournalDocument(), title: 'Side A' });
+    const b = await postJournal(maker, {
+      ...publicJournalDocument(),
+      title: 'Side B',
+      rindTreatment: 'cloth-bound',
+    });
+    await addTasting(a.id, maker.member.id, 6, 70);
+    await addTasting(b.id, maker.member.id, 8, 75);
+    const res = await visitor(t.app).get(`/api/compare/journals?ids=${a.id},${b.id}`).expect(200);
+    expect(res.body.journals.map((j: { title: string }) => j.title)).toEqual(['Side A', 'Side B']);
+    const row = (key: string) => res.body.rows.find((r: { key: string }) => r.key === key);
+    expect(row('rindTreatment')).toMatchObject({ values: ['Waxed', 'Cloth-bound'], differs: true });
+    expect(row('style')).toMatchObject({ differs: false });
+    expect(row('pressMaxKpa').values[0]).toBeGreaterThan(0);
+    expect(res.body.scoresByAge).toEqual([{ band: '2 to 3 months', values: [6, 8] }]);
+
+    const secret = await postJournal(maker, { title: 'Secret' });
+    expect(
+      (await visitor(t.app).get(`/api/compare/journals?ids=${a.id},${secret.id}`)).status,
+    ).toBe(404);
+    expect((await maker.get(`/api/compare/journals?ids=${a.id},${secret.id}`)).status).toBe(200);
   });
 });
