@@ -4,3 +4,4 @@ export * from './styles';
 export * from './auth';
 export * from './journals';
 export * from './tastings';
+export * from './community';

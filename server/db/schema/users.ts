@@ -27,6 +27,8 @@ export const users = mysqlTable(
     role: mysqlEnum('role', ROLES).notNull().default('member'),
     units: mysqlEnum('units', UNIT_SYSTEMS).notNull().default('metric'),
     remindersEnabled: boolean('reminders_enabled').notNull().default(true),
+    /** E-mail the member when someone comments on one of their journals. */
+    notifyComments: boolean('notify_comments').notNull().default(true),
     bio: text('bio'),
     /** Bumped when the member resets their calendar address (the address is signed with it). */
     calendarVersion: int('calendar_version').notNull().default(0),
