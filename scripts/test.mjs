@@ -7,7 +7,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { ensureClientBuild } from './lib/build.mjs';
-import { startPrivateDatabase } from './lib/database.mjs';
+import { addDatabase, startPrivateDatabase } from './lib/database.mjs';
 import { ensureChromium, ensureNodeModules } from './lib/deps.mjs';
 import { checkNode } from './lib/node-check.mjs';
 import { run } from './lib/run.mjs';
@@ -38,6 +38,8 @@ async function main() {
     remember: false,
   });
   database = started.db;
+  // A second, empty database for the test that seeds the demo club from scratch.
+  const seedUrl = await addDatabase(started.db, 'rindwise_seed_test');
 
   const bin = (name) => path.join(root, 'node_modules/.bin', name);
   const failures = [];
@@ -73,6 +75,7 @@ async function main() {
     {
       NODE_ENV: 'test',
       DATABASE_URL: started.url,
+      SEED_DATABASE_URL: seedUrl,
       UPLOADS_DIR: uploads,
       CHROMIUM_PATH: chromium,
       CLIENT_DIST: path.join(root, 'dist'),

@@ -1,0 +1,76 @@
+import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { sql } from 'drizzle-orm';
+import supertest from 'supertest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { migrateDatabase } from '../../server/db/migrate';
+import { seedDemo } from '../../server/db/seed';
+import { createTestApp, type TestApp } from '../support/app';
+
+// The demo scenario seeded into its own empty database, as the first `npm start` does.
+describe('demo seed', () => {
+  let t: TestApp;
+  let uploads: string;
+  beforeAll(async () => {
+    uploads = mkdtempSync(path.join(os.tmpdir(), 'rindwise-seed-uploads-'));
+    t = await createTestApp({ DATABASE_URL: process.env.SEED_DATABASE_URL!, UPLOADS_DIR: uploads });
+    await migrateDatabase(t.ctx.database.db);
+    await t.ctx.database.db.execute(sql`SET FOREIGN_KEY_CHECKS = 0`);
+    for (const table of ['tastings', 'journal_photos', 'journal_readings', 'journals', 'users']) {
+      await t.ctx.database.db.execute(sql.raw(`DELETE FROM ${table}`));
+    }
+    await t.ctx.database.db.execute(sql`SET FOREIGN_KEY_CHECKS = 1`);
+  }, 120_000);
+  afterAll(async () => {
+    await t?.close();
+    rmSync(uploads, { recursive: true, force: true });
+  });
+
+  it('creates the club, two dozen journals across styles with photos, readings and tastings', async () => {
+    const accounts = await seedDemo(t.ctx);
+    expect(accounts.map((a) => a.role).sort()).toEqual([
+      'admin',
+      'member',
+      'member',
+      'member',
+      'moderator',
+    ]);
+    const [[counts]] = (await t.ctx.database.db.execute(sql`
+      SELECT (SELECT COUNT(*) FROM journals) AS journals,
+             (SELECT COUNT(DISTINCT style_id) FROM journals) AS styles,
+             (SELECT COUNT(*) FROM journals WHERE heat_treatment = 'raw') AS raw,
+             (SELECT COUNT(*) FROM journals WHERE heat_treatment = 'pasteurised') AS pasteurised,
+             (SELECT COUNT(*) FROM journal_photos) AS photos,
+             (SELECT COUNT(*) FROM journal_weigh_ins) AS weighIns,
+             (SELECT COUNT(*) FROM journal_press_stages) AS pressStages,
+             (SELECT COUNT(*) FROM journal_readings) AS readings,
+             (SELECT COUNT(*) FROM tastings) AS tastings`)) as unknown as [
+      Record<string, number>[],
+    ];
+    expect(Number(counts.journals)).toBeGreaterThanOrEqual(24);
+    expect(Number(counts.styles)).toBeGreaterThanOrEqual(6);
+    expect(Number(counts.raw)).toBeGreaterThanOrEqual(3);
+    expect(Number(counts.pasteurised)).toBeGreaterThanOrEqual(3);
+    expect(Number(counts.photos)).toBeGreaterThanOrEqual(24);
+    expect(Number(counts.weighIns)).toBeGreaterThan(100);
+    expect(Number(counts.pressStages)).toBeGreaterThan(40);
+    expect(Number(counts.readings)).toBeGreaterThan(20);
+    expect(Number(counts.tastings)).toBeGreaterThan(20);
+    // Three WebP renditions (320, 960, 1920 px) of each drawn 1920 px photo are on disk.
+    expect(
+      readdirSync(path.join(uploads, 'photos')).filter((f) => f.endsWith('.webp')),
+    ).toHaveLength(Number(counts.photos) * 3);
+
+    const discover = await supertest(t.app)
+      .get('/api/journals?style=cheddar&sort=best')
+      .expect(200);
+    expect(discover.body.total).toBeGreaterThan(3);
+    expect(discover.body.items[0].cover).not.toBeNull();
+    const compare = await supertest(t.app).get('/api/compare?x=saltPerLitre&y=overall').expect(200);
+    expect(compare.body.n).toBeGreaterThanOrEqual(10);
+    expect(compare.body.meaningful).toBe(true);
+    // A second run refuses to touch a database that has members.
+    expect(await seedDemo(t.ctx)).toEqual([]);
+  }, 180_000);
+});
