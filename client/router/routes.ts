@@ -75,6 +75,13 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Compare' },
   },
   {
+    // Two to four journals side by side: /compare/journals?ids=3,8
+    path: '/compare/journals',
+    name: 'compare-journals',
+    component: () => import('../views/compare/CompareJournalsView.vue'),
+    meta: { title: 'Journals side by side' },
+  },
+  {
     path: '/signin',
     name: 'sign-in',
     component: () => import('../views/account/SignInView.vue'),
