@@ -12,6 +12,7 @@ import type { MouldFace } from './pressure';
 import { pressSchedulePressures } from './pressure';
 import { checkHeatingRamp, DEFAULT_RAMP_LIMIT_C_PER_5_MIN } from './ramp';
 import { ratePerLitreOfMilk, saltPercentOfCurd } from './salt';
+import { formatNumber } from './format';
 import { CHEDDAR_STANDARD } from './standards';
 import { amountDimension, amountToLitres, amountToSi } from './units';
 import type { AmountUnit } from './units';
@@ -213,8 +214,8 @@ function predictedYield(input: JournalFiguresInput): { value: number; basis: str
   }
   if (!(value > 0) || !Number.isFinite(value)) return null;
   const basis =
-    `Van Slyke's cheddar formula (Van Slyke and Price, 1949) with ${fatPercent} % fat and ` +
-    `casein taken as ${Math.round(DEFAULT_CASEIN_FRACTION * 100)} % of the ${proteinPercent} % ` +
+    `Van Slyke's cheddar formula (Van Slyke and Price, 1949) with ${formatNumber(fatPercent)} % fat and ` +
+    `casein taken as ${Math.round(DEFAULT_CASEIN_FRACTION * 100)} % of the ${formatNumber(proteinPercent)} % ` +
     `protein, for a cheese of ${PREDICTION_MOISTURE_PERCENT} % moisture (a typical cheddar; ` +
     `the ${CHEDDAR_STANDARD.source} limit is ${CHEDDAR_STANDARD.maxMoisturePercent} %). ` +
     'For styles other than cheddar it is a rough guide only.';

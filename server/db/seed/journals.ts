@@ -20,7 +20,8 @@ export function prng(seed: number) {
 
 type Rand = () => number;
 const between = (r: Rand, lo: number, hi: number) => lo + (hi - lo) * r();
-const round = (v: number, step: number) => Math.round(v / step) * step;
+// Rounded to the step, and cleaned of binary noise (4.1000000000000005 → 4.1).
+const round = (v: number, step: number) => Number((Math.round(v / step) * step).toFixed(6));
 
 type StepPlan = {
   kind: StepKind;
