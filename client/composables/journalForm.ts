@@ -214,7 +214,8 @@ export function emptyForm(units: FormUnits): JournalForm {
       volume: null,
       volumeUnit: units.milk,
       species: 'cow',
-      heatTreatment: 'pasteurised',
+      // No default: whether the milk was raw matters for safety, so the maker says it.
+      heatTreatment: '',
       homogenised: false,
       fatPercent: null,
       proteinPercent: null,
