@@ -87,9 +87,20 @@ export function useVatJournal(journalId: number) {
   );
   const waiting = computed(() => countWaiting(queue.items.value));
 
+  /** The latest whole document of this journal still in the queue, if any. */
+  function queuedDocument(): JournalInput | null {
+    const item = [...queue.items.value]
+      .reverse()
+      .find((i) => i.kind === 'document' && i.journalId === journalId);
+    return item?.kind === 'document' ? item.document : null;
+  }
+
   async function load() {
     state.value = 'loading';
     errorMessage.value = '';
+    // Taken before the request: the queue may send (and drop) it while the journal loads,
+    // and the answer may still be the older version.
+    const queuedBefore = queuedDocument();
     try {
       const journal = await fetchVatJournal(journalId);
       dto.value = journal;
@@ -98,10 +109,7 @@ export function useVatJournal(journalId: number) {
         state.value = 'not-yours';
         return;
       }
-      const queued = [...queue.items.value]
-        .reverse()
-        .find((item) => item.kind === 'document' && item.journalId === journalId);
-      doc.value = queued?.kind === 'document' ? queued.document : documentFromDto(journal);
+      doc.value = queuedDocument() ?? queuedBefore ?? documentFromDto(journal);
       state.value = 'ready';
     } catch (error) {
       if (error instanceof ApiError && error.status === 404) state.value = 'not-found';

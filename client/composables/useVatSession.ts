@@ -105,6 +105,8 @@ export function useVatSession(vat: VatJournal) {
         if (pressMode.value && stepTimer.allowed.value.finish) stepTimer.act('finish');
       }
       if (!isComplete(next)) local.value.pressEndedAt = null;
+      // Putting on the next weight ends one stage and starts the next in the same moment.
+      if (action === 'finish' && !isComplete(next)) pressTimer.act('start');
     },
     onTimeUp: alert.timeUp,
   });

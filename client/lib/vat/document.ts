@@ -63,8 +63,8 @@ export function lastTempOfStep(readings: readonly ReadingDto[], stepIndex: numbe
 
 /**
  * Writes the step timer into the document: a started step gets its start time; a finished or
- * skipped one its actual minutes, and the last temperature logged during it when the maker
- * has not typed one. Steps the timer has not touched keep what the journal said.
+ * skipped one its actual minutes (a running or paused one none yet), and the last temperature
+ * logged during it. Steps the timer has not touched keep what the journal said.
  */
 export function applyStepTimer(
   doc: JournalInput,
@@ -79,7 +79,8 @@ export function applyStepTimer(
     return {
       ...step,
       startedAt: isoWithOffset(run.startedAt),
-      actualMinutes: ended ? runMinutes(run, now) : step.actualMinutes,
+      // A step reopened with Back is not over: its earlier total no longer stands.
+      actualMinutes: ended ? runMinutes(run, now) : null,
       actualTempC: ended ? (lastTempOfStep(readings, i) ?? step.actualTempC) : step.actualTempC,
     };
   });

@@ -57,17 +57,19 @@ export function undoAcknowledge(prompt: PromptState): PromptState {
 export interface PromptWording {
   /** the button and the alert: "Stir the curd" */
   action: string;
-  /** the count: "Stirred 7 times" */
+  /** the count: "Stirred 7 times", "Not stirred yet" */
   counted: (count: number) => string;
   /** a sensible first interval, minutes (common practice) */
   defaultMinutes: number;
 }
 
 const times = (n: number) => (n === 1 ? 'once' : n === 2 ? 'twice' : `${n} times`);
+const counter = (done: string, notYet: string) => (n: number) =>
+  n === 0 ? notYet : `${done} ${times(n)}`;
 
 const STIR: PromptWording = {
   action: 'Stir the curd',
-  counted: (n) => `Stirred ${times(n)}`,
+  counted: counter('Stirred', 'Not stirred yet'),
   defaultMinutes: 5,
 };
 
@@ -79,7 +81,7 @@ export function promptWordingFor(kind: StepKind | 'press'): PromptWording {
     case 'colouring':
       return {
         action: 'Stir the milk',
-        counted: (n) => `Stirred ${times(n)}`,
+        counted: counter('Stirred', 'Not stirred yet'),
         defaultMinutes: 10,
       };
     case 'healing':
@@ -90,7 +92,7 @@ export function promptWordingFor(kind: StepKind | 'press'): PromptWording {
     case 'cheddaring':
       return {
         action: 'Turn and stack the slabs',
-        counted: (n) => `Turned ${times(n)}`,
+        counted: counter('Turned', 'Not turned yet'),
         defaultMinutes: 15,
       };
     case 'draining':
@@ -99,13 +101,13 @@ export function promptWordingFor(kind: StepKind | 'press'): PromptWording {
     case 'press':
       return {
         action: 'Check the press load',
-        counted: (n) => `Checked ${times(n)}`,
+        counted: counter('Checked', 'Not checked yet'),
         defaultMinutes: 30,
       };
     default:
       return {
         action: 'Check the vat',
-        counted: (n) => `Checked ${times(n)}`,
+        counted: counter('Checked', 'Not checked yet'),
         defaultMinutes: 10,
       };
   }

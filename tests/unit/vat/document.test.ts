@@ -16,7 +16,7 @@ import {
   mergeReadings,
   newReadingId,
 } from '../../../client/lib/vat/readings';
-import { createTimer, finish, start } from '../../../client/lib/vat/timer';
+import { back, createTimer, finish, skip, start } from '../../../client/lib/vat/timer';
 import { journalInputSchema } from '../../../shared/schemas/journal';
 import { journalDto } from './fixtures';
 
@@ -80,6 +80,10 @@ describe('the journal document the vat writes back', () => {
     expect(doc.steps[2]).toEqual(dto.steps[2]);
     expect(checkDocument(doc)).toBeNull();
     expect(lastTempOfStep(readings, 2)).toBeNull();
+
+    // Back to the first step after a mistaken Finish: its minutes are open again.
+    const reopened = applyStepTimer(doc, back(skip(timer, T0 + 41 * MIN)), readings, T0 + 42 * MIN);
+    expect(reopened.steps[1].actualMinutes).toBeNull();
   });
 
   it('saves the green weight and moves the wheel on, never back', () => {
