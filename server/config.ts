@@ -27,6 +27,20 @@ const EnvSchema = z.object({
   SERVE_CLIENT: bool.default(true),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   JOBS_ENABLED: bool.default(true),
+  STORAGE: z.enum(['local', 's3']).default('local'),
+  S3_ENDPOINT: z.url().optional(),
+  S3_BUCKET: z
+    .string()
+    .regex(/^[a-z0-9][a-z0-9.-]{1,61}[a-z0-9]$/, 'must be an S3 bucket name')
+    .optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_FORCE_PATH_STYLE: bool.default(false),
+  S3_PREFIX: z
+    .string()
+    .regex(/^([A-Za-z0-9._-]+\/)*$/, 'must be empty or end with a slash, e.g. photos/')
+    .default('photos/'),
 });
 
 export type AppConfig = Readonly<{
@@ -47,7 +61,24 @@ export type AppConfig = Readonly<{
   serveClient: boolean;
   logLevel: string;
   jobsEnabled: boolean;
+  storage: StorageConfig;
 }>;
+
+/** Where photos go: a local folder, or an S3-compatible object store. */
+export type StorageConfig =
+  | { kind: 'local' }
+  | {
+      kind: 's3';
+      /** Empty for AWS itself; the URL of MinIO, Ceph, R2 and the like otherwise. */
+      endpoint: string | null;
+      bucket: string;
+      region: string;
+      /** Both null: the SDK's own chain (instance role, AWS_* variables, profile). */
+      accessKeyId: string | null;
+      secretAccessKey: string | null;
+      forcePathStyle: boolean;
+      prefix: string;
+    };
 
 /** A configuration error that names every bad variable. */
 export class ConfigError extends Error {
@@ -80,6 +111,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     ]);
   }
   const trustProxy = parseTrustProxy(e.TRUST_PROXY);
+  const storage = storageConfig(e);
   return Object.freeze({
     env: e.NODE_ENV,
     isProduction,
@@ -100,5 +132,26 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     serveClient: e.SERVE_CLIENT,
     logLevel: e.LOG_LEVEL,
     jobsEnabled: e.JOBS_ENABLED,
+    storage,
+  });
+}
+
+function storageConfig(e: z.infer<typeof EnvSchema>): StorageConfig {
+  if (e.STORAGE === 'local') return Object.freeze({ kind: 'local' });
+  const problems: string[] = [];
+  if (!e.S3_BUCKET) problems.push('S3_BUCKET: required when STORAGE=s3');
+  if (Boolean(e.S3_ACCESS_KEY_ID) !== Boolean(e.S3_SECRET_ACCESS_KEY)) {
+    problems.push('S3_ACCESS_KEY_ID, S3_SECRET_ACCESS_KEY: give both or neither');
+  }
+  if (problems.length) throw new ConfigError(problems);
+  return Object.freeze({
+    kind: 's3',
+    endpoint: e.S3_ENDPOINT ?? null,
+    bucket: e.S3_BUCKET!,
+    region: e.S3_REGION,
+    accessKeyId: e.S3_ACCESS_KEY_ID ?? null,
+    secretAccessKey: e.S3_SECRET_ACCESS_KEY ?? null,
+    forcePathStyle: e.S3_FORCE_PATH_STYLE,
+    prefix: e.S3_PREFIX,
   });
 }

@@ -4,6 +4,7 @@ import type { AppConfig } from './config';
 import { createDatabase, type DatabaseHandle } from './db/client';
 import { createLimiters, type Limiters } from './lib/rate-limit';
 import { createLogger } from './lib/logger';
+import { S3Storage } from './lib/s3-storage';
 import { LocalStorage, type PhotoStorage } from './lib/storage';
 import { LocalMailbox } from './mail/local-mailbox';
 import { Mailer } from './mail/mailer';
@@ -17,7 +18,7 @@ export type AppContext = {
   /** The local mail fake; null in production or when SMTP_URL names a real relay. */
   mailbox: LocalMailbox | null;
   limiters: Limiters;
-  /** Where photo renditions are stored: UPLOADS_DIR/photos for now (S3 comes later). */
+  /** Where photo renditions are stored: UPLOADS_DIR/photos, or an S3 bucket (STORAGE=s3). */
   storage: PhotoStorage;
   /** Registers something to close (timers, stores) before the pool closes. */
   onClose: (closer: () => Promise<void> | void) => void;
@@ -48,6 +49,7 @@ export async function createContext(
   const mailer = new Mailer(smtpUrl, config.mailFrom, logger);
   const limiters = createLimiters(database.pool, databaseName(config.databaseUrl));
   const closers: Array<() => Promise<void> | void> = [];
+  const storage = createStorage(config);
   return {
     config,
     logger,
@@ -55,13 +57,21 @@ export async function createContext(
     mailer,
     mailbox,
     limiters,
-    storage: new LocalStorage(path.join(config.uploadsDir, 'photos')),
+    storage,
     onClose: (closer) => closers.push(closer),
     close: async () => {
       for (const closer of closers.reverse()) await closer();
       mailer.close();
       await mailbox?.stop();
       await database.close();
+      if (storage instanceof S3Storage) storage.close();
     },
   };
+}
+
+/** The photo storage that the config names: the local folder by default, or S3. */
+export function createStorage(config: AppConfig): PhotoStorage {
+  return config.storage.kind === 's3'
+    ? new S3Storage(config.storage)
+    : new LocalStorage(path.join(config.uploadsDir, 'photos'));
 }

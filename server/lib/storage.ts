@@ -30,7 +30,8 @@ export interface PhotoStorage {
 /** Only our own key shape reaches the file system, so no key can climb out of the root. */
 const SAFE_KEY = /^[A-Za-z0-9][A-Za-z0-9._-]{0,127}$/;
 
-function assertSafeKey(key: string): void {
+/** Throws on any key not of our own shape (no slashes, no dot-dot, no leading dot). */
+export function assertSafeKey(key: string): void {
   if (!SAFE_KEY.test(key) || key.includes('..')) {
     throw new Error(`Refusing an unsafe storage key: ${JSON.stringify(key)}`);
   }
