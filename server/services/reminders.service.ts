@@ -1,5 +1,6 @@
 import { isoDate } from '../../shared/trade/time';
 import type { AppContext } from '../context';
+import { retryOnDeadlock } from '../lib/retry';
 import { mailTemplates } from '../mail/templates';
 import {
   claimReminders,
@@ -17,14 +18,18 @@ export async function runReminderPass(
   now = new Date(),
 ): Promise<{ queued: number; sent: number; failed: number }> {
   const db = ctx.database.db;
-  const queued = await queueDueReminders(
-    db,
-    isoDate({ year: now.getUTCFullYear(), month: now.getUTCMonth() + 1, day: now.getUTCDate() }),
-  );
+  const today = isoDate({
+    year: now.getUTCFullYear(),
+    month: now.getUTCMonth() + 1,
+    day: now.getUTCDate(),
+  });
+  // Two servers' passes can deadlock on the queue's index entries; InnoDB rolls the victim
+  // back whole, so running it again is safe.
+  const queued = await retryOnDeadlock(() => queueDueReminders(db, today));
   let sent = 0;
   let failed = 0;
   for (;;) {
-    const batch = await claimReminders(db);
+    const batch = await retryOnDeadlock(() => claimReminders(db));
     if (!batch.length) break;
     for (const reminder of batch) {
       const url = `${ctx.config.publicUrl}/journals/${reminder.journalId}/taste`;
