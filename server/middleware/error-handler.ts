@@ -19,22 +19,32 @@ export const apiNotFound: RequestHandler = (req, res) => {
   });
 };
 
+const CONNECTION_CODES = new Set([
+  'ECONNREFUSED',
+  'PROTOCOL_CONNECTION_LOST',
+  'ETIMEDOUT',
+  'ECONNRESET',
+  'ER_CON_COUNT_ERROR',
+  'EPIPE',
+  'ENOTFOUND',
+  'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
+]);
+
+/**
+ * True when the database connection itself failed. Drizzle wraps the driver's error in
+ * `cause`; a transaction whose connection died reports the failed ROLLBACK, whose cause is
+ * mysql2's "connection is in closed state" error, marked `fatal` and without a code.
+ */
 const isDbConnectionError = (error: unknown): boolean => {
-  const code =
-    (error as { code?: string } | null)?.code ??
-    (error as { cause?: { code?: string } })?.cause?.code;
-  return (
-    typeof code === 'string' &&
-    [
-      'ECONNREFUSED',
-      'PROTOCOL_CONNECTION_LOST',
-      'ETIMEDOUT',
-      'ECONNRESET',
-      'ER_CON_COUNT_ERROR',
-      'EPIPE',
-      'ENOTFOUND',
-    ].includes(code)
-  );
+  let current: unknown = error;
+  for (let depth = 0; depth < 4 && current && typeof current === 'object'; depth++) {
+    const { code, fatal, cause } = current as { code?: unknown; fatal?: unknown; cause?: unknown };
+    if (typeof code === 'string' && CONNECTION_CODES.has(code)) return true;
+    if (fatal === true) return true;
+    current = cause;
+  }
+  return false;
 };
 
 /**
