@@ -123,6 +123,8 @@ describe('the first journal journey in Chromium', () => {
     await page.getByLabel('Aging target (days)').fill('90');
     await page.getByLabel('Cave temperature (°C)').fill('12');
     await page.getByLabel('Cave humidity (% RH)').fill('88');
+    await page.getByRole('button', { name: '+ Add a weigh-in' }).click();
+    await row(page, 'Weigh-in 1').getByLabel('Weight (kg)').fill('1.21');
     await page.getByLabel('Notes (Markdown)').fill('Morning milk, **clean break** at 40 minutes.');
 
     // The first save creates the draft and the address becomes the edit address.
@@ -185,6 +187,8 @@ describe('the first journal journey in Chromium', () => {
     await reader.page.getByRole('heading', { name: 'Worked-out figures' }).waitFor();
     await shows(reader.page.locator('table'), /kPa/);
     await reader.page.getByText('Out of the press').first().waitFor();
+    await reader.page.getByRole('img', { name: /Weight of the wheel over time/ }).waitFor();
+    await shows(reader.page.locator('li'), /3\.2 % lost since green/);
     await reader.page.getByRole('button', { name: 'Start a batch from this' }).waitFor();
     expect(await reader.page.getByRole('button', { name: 'Edit' }).count()).toBe(0);
     await e.screenshot(reader.page, 'journal-page-desktop');
