@@ -19,6 +19,10 @@ import { journalsRouter } from './routes/journals.routes';
 import { mediaRouter } from './routes/media.routes';
 import { photosRouter } from './routes/photos.routes';
 import { stylesRouter } from './routes/styles.routes';
+import { commentsRouter, journalCommentsRouter } from './routes/comments.routes';
+import { feedRouter, membersRouter } from './routes/members.routes';
+import { auditRouter, moderationRouter, reportsRouter } from './routes/moderation.routes';
+import { notificationsRouter } from './routes/notifications.routes';
 
 /**
  * Builds the Express app from a context (config, logger, database); it does not listen, so
@@ -74,16 +78,25 @@ export function createApp(ctx: AppContext): Express {
   app.use('/api', sessions.handler, requireCsrf, authenticate(ctx));
 
   app.use('/api/auth', authRouter(ctx));
+  // Before the admin router, which answers everything under /api/admin.
+  app.use('/api/admin/audit', auditRouter(ctx));
   app.use('/api/admin', adminRouter(ctx));
   app.use('/api/styles', stylesRouter(ctx));
   // Before the journals router, so /api/journals/:id/photos reaches the photos router.
   app.use('/api/journals/:id/photos', photosRouter(ctx));
+  app.use('/api/journals/:id/comments', journalCommentsRouter(ctx));
   app.use('/api/journals/:id', journalTastingsRouter(ctx));
   app.use('/api/journals', journalsRouter(ctx));
   app.use('/api/tastings', tastingsRouter(ctx));
   app.use('/api/cave', caveRouter(ctx));
   app.use('/api/calendar', calendarFeedRouter(ctx));
   app.use('/api/compare', compareRouter(ctx));
+  app.use('/api/comments', commentsRouter(ctx));
+  app.use('/api/members', membersRouter(ctx));
+  app.use('/api/feed', feedRouter(ctx));
+  app.use('/api/notifications', notificationsRouter(ctx));
+  app.use('/api/reports', reportsRouter(ctx));
+  app.use('/api/moderation', moderationRouter(ctx));
   if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
   app.use('/api', apiNotFound);
 

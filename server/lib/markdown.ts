@@ -26,3 +26,34 @@ export function renderNotes(source: string): string {
     FORBID_ATTR: ['style'],
   });
 }
+
+// Comments and bios: the same fences, and no images at all (no tracking pixels, no hot-linked
+// pictures in someone else's journal). markdown-it's image rule is off, so ![x](y) stays text.
+const shortMarkdown = new MarkdownIt({ html: false, linkify: true, typographer: false }).disable(
+  'image',
+);
+
+/** Renders a comment or a bio to safe HTML: links and basic formatting, never images. */
+export function renderComment(source: string): string {
+  if (!source.trim()) return '';
+  return purify.sanitize(shortMarkdown.render(source), {
+    USE_PROFILES: { html: true },
+    FORBID_TAGS: [
+      'img',
+      'picture',
+      'source',
+      'svg',
+      'math',
+      'video',
+      'audio',
+      'style',
+      'form',
+      'input',
+      'button',
+      'textarea',
+      'select',
+      'iframe',
+    ],
+    FORBID_ATTR: ['style', 'src', 'srcset'],
+  });
+}

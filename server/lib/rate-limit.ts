@@ -14,6 +14,9 @@ export const LIMITS = {
   resendIp: { points: 20, duration: 60 * 60 },
   resetAccount: { points: 3, duration: 60 * 60 },
   resetIp: { points: 20, duration: 60 * 60 },
+  // Community: enough for a lively thread, too few for a spam run; reports are rarer still.
+  commentMember: { points: 10, duration: 10 * 60 },
+  reportMember: { points: 10, duration: 60 * 60 },
 } satisfies Record<string, LimitSpec>;
 
 export type LimiterName = keyof typeof LIMITS;

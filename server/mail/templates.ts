@@ -110,4 +110,32 @@ export const mailTemplates = {
       ],
       { label: 'Open the journal', url },
     ),
+
+  newComment: (
+    to: string,
+    name: string,
+    commenter: string,
+    title: string,
+    excerpt: string,
+    url: string,
+  ) =>
+    layout(
+      to,
+      `${commenter} commented on ${title}`,
+      [
+        `Hello ${name},`,
+        `${commenter} left a comment on your journal "${title}":`,
+        `"${excerpt}"`,
+        'You can turn these e-mails off in your account settings; the comments stay in your notifications on the site.',
+      ],
+      { label: 'Read and reply', url },
+    ),
+
+  accountSuspended: (to: string, name: string, note: string) =>
+    layout(to, 'Your Rindwise account is suspended', [
+      `Hello ${name},`,
+      'An admin has suspended your Rindwise account after a report, so you cannot sign in for now.',
+      ...(note ? [`Their note: ${note}`] : []),
+      'If you think this is a mistake, reply to this message and tell us why.',
+    ]),
 };

@@ -12,6 +12,8 @@ export type AuthMember = {
   role: Role;
   units: 'metric' | 'us';
   remindersEnabled: boolean;
+  notifyComments: boolean;
+  bio: string;
   emailVerified: boolean;
   createdAt: Date;
 };
@@ -34,6 +36,8 @@ export function authenticate(ctx: AppContext): RequestHandler {
       role: user.role,
       units: user.units,
       remindersEnabled: user.remindersEnabled,
+      notifyComments: user.notifyComments,
+      bio: user.bio ?? '',
       emailVerified: user.emailVerifiedAt !== null,
       createdAt: user.createdAt,
     };

@@ -15,6 +15,8 @@ export function presentMe(member: AuthMember | UserRow): MeDto {
     role: member.role,
     units: member.units,
     remindersEnabled: member.remindersEnabled,
+    notifyComments: member.notifyComments,
+    bio: member.bio ?? '',
     emailVerified,
     createdAt: member.createdAt.toISOString(),
   };

@@ -262,6 +262,8 @@ export type JournalListFilter = {
   /** Only what others may list: published, public, not hidden. */
   listedOnly: boolean;
   makerId?: number;
+  /** Only journals by these makers (the feed of makers a member follows). */
+  makerIds?: number[];
   styleIds?: number[];
   species?: Species[];
   heat?: HeatTreatment[];
@@ -288,6 +290,7 @@ function listConditions(f: JournalListFilter): SQL | undefined {
     );
   }
   if (f.makerId !== undefined) where.push(eq(journals.userId, f.makerId));
+  if (f.makerIds) where.push(inArray(journals.userId, f.makerIds));
   if (f.styleIds) where.push(inArray(journals.styleId, f.styleIds));
   if (f.species?.length) where.push(inArray(journals.species, f.species));
   if (f.heat?.length) where.push(inArray(journals.heatTreatment, f.heat));

@@ -1,6 +1,7 @@
 import type { z } from 'zod';
 import type { adminListUsersSchema, adminUpdateUserSchema } from '../../shared/schemas/auth';
 import type { AppContext } from '../context';
+import type { Database } from '../db/client';
 import { AppError, ConflictError, NotFoundError } from '../lib/errors';
 import type { AuthMember } from '../middleware/authenticate';
 import {
@@ -10,6 +11,7 @@ import {
   updateUser,
   type UserRow,
 } from '../repositories/users.repository';
+import { recordAudit } from './audit.service';
 import { endAllSessions } from './auth.service';
 
 /** A page of members for the admin list. */
@@ -50,9 +52,36 @@ export async function updateMemberAsAdmin(
     set.disabledAt = change.disabled ? (target.disabledAt ?? new Date()) : null;
   await updateUser(db, userId, set);
   if (change.disabled) await endAllSessions(ctx, userId);
+  await auditMemberChange(db, actor, target, change);
   ctx.logger.info(
     { event: 'admin-update-user', actorId: actor.id, userId, change },
     'member updated by admin',
   );
   return (await findUserById(db, userId))!;
+}
+
+// Role changes and disabling from the member list go in the audit log with the moderation
+// actions, so admins read one history of who did what to whom.
+async function auditMemberChange(
+  db: Database,
+  actor: AuthMember,
+  target: UserRow,
+  change: z.infer<typeof adminUpdateUserSchema>,
+): Promise<void> {
+  const targetUser = { id: target.id, handle: target.handle };
+  const entry = { targetType: 'member' as const, targetId: target.id, targetUser };
+  if (change.role && change.role !== target.role) {
+    await recordAudit(db, actor, {
+      ...entry,
+      action: 'role-changed',
+      summary: `@${target.handle}: ${target.role} → ${change.role}`,
+    });
+  }
+  if (change.disabled !== undefined && change.disabled !== (target.disabledAt !== null)) {
+    await recordAudit(db, actor, {
+      ...entry,
+      action: change.disabled ? 'member-disabled' : 'member-enabled',
+      summary: `@${target.handle}`,
+    });
+  }
 }

@@ -316,6 +316,7 @@ export async function updateMe(
   if (input.displayName !== undefined) set.displayName = input.displayName;
   if (input.units !== undefined) set.units = input.units;
   if (input.remindersEnabled !== undefined) set.remindersEnabled = input.remindersEnabled;
+  if (input.notifyComments !== undefined) set.notifyComments = input.notifyComments;
   if (input.bio !== undefined) set.bio = input.bio;
   if (Object.keys(set).length) await updateUser(db, userId, set);
   return { user: (await findUserById(db, userId))!, pendingEmail };

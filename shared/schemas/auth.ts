@@ -71,6 +71,7 @@ export const updateMeSchema = z
     displayName: displayNameSchema.optional(),
     units: z.enum(['metric', 'us'], { error: 'Choose metric or US customary.' }).optional(),
     remindersEnabled: z.boolean({ error: 'Choose on or off.' }).optional(),
+    notifyComments: z.boolean({ error: 'Choose on or off.' }).optional(),
     bio: z.string().max(2000, 'Use at most 2000 characters.').optional(),
     email: emailSchema.optional(),
     currentPassword: z

@@ -10,6 +10,10 @@ export type MeDto = {
   role: Role;
   units: UnitSystem;
   remindersEnabled: boolean;
+  /** E-mail me when someone comments on my journals. */
+  notifyComments: boolean;
+  /** The Markdown source of the profile bio. */
+  bio: string;
   emailVerified: boolean;
   createdAt: string;
 };

@@ -65,6 +65,8 @@ export async function seedDemo(ctx: AppContext): Promise<SeededAccount[]> {
       role: user.role,
       units: user.units,
       remindersEnabled: user.remindersEnabled,
+      notifyComments: user.notifyComments,
+      bio: user.bio ?? '',
       emailVerified: true,
       createdAt: user.createdAt,
     });

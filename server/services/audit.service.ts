@@ -1,0 +1,59 @@
+import type { z } from 'zod';
+import type { AuditAction, AuditTarget } from '../../shared/constants/community';
+import type { auditQuerySchema } from '../../shared/schemas/community';
+import type { AuditEntryDto } from '../../shared/types/community';
+import type { Page } from '../../shared/types/admin';
+import type { AppContext } from '../context';
+import type { AuthMember } from '../middleware/authenticate';
+import { presentAuditEntry } from '../presenters/community.presenter';
+import type { Db } from '../repositories/journals.repository';
+import { insertAuditEntry, listAuditEntries } from '../repositories/moderation.repository';
+
+export type AuditInput = {
+  action: AuditAction;
+  targetType: AuditTarget;
+  targetId: number | null;
+  targetUser?: { id: number; handle: string } | null;
+  reportId?: number | null;
+  summary?: string;
+  note?: string;
+};
+
+const clip = (text: string, max: number) =>
+  text.length > max ? `${text.slice(0, max - 1).trimEnd()}…` : text;
+
+/**
+ * Writes one audit entry for an action by a moderator or admin. Call it in the same
+ * transaction as the action, so that no action happens without its entry.
+ */
+export async function recordAudit(
+  db: Db,
+  actor: Pick<AuthMember, 'id' | 'handle'>,
+  entry: AuditInput,
+): Promise<void> {
+  await insertAuditEntry(db, {
+    actorId: actor.id,
+    actorHandle: actor.handle,
+    action: entry.action,
+    targetType: entry.targetType,
+    targetId: entry.targetId,
+    targetUserId: entry.targetUser?.id ?? null,
+    targetUserHandle: entry.targetUser?.handle ?? null,
+    reportId: entry.reportId ?? null,
+    summary: clip(entry.summary ?? '', 300),
+    note: clip(entry.note ?? '', 1000),
+  });
+}
+
+/** A page of the audit log for admins, newest first, optionally one actor's entries. */
+export async function listAudit(
+  ctx: AppContext,
+  query: z.infer<typeof auditQuerySchema>,
+): Promise<Page<AuditEntryDto>> {
+  const { rows, total } = await listAuditEntries(ctx.database.db, {
+    page: query.page,
+    pageSize: query.pageSize,
+    actorHandle: query.actor?.replace(/^@/, '') || undefined,
+  });
+  return { items: rows.map(presentAuditEntry), total, page: query.page, pageSize: query.pageSize };
+}
