@@ -30,11 +30,13 @@ function storedSound(): boolean {
 
 /**
  * Beeps (a tone made with the Web Audio API, no sound file) and buzzes (navigator.vibrate)
- * for a prompt or a timer that has run out. `unlock()` must run from a tap (Start, Done) so
- * the browser lets the page sound later; the maker can turn the sound off.
+ * for a prompt or a timer that has run out. `unlock()` must run from a tap so the browser
+ * lets the page sound later (`ready` says whether it has); the maker can turn the sound off.
  */
 export function useVatAlert() {
   const soundOn = ref(storedSound());
+  /** The browser lets the page sound: a tap has resumed the audio since the page loaded. */
+  const ready = ref(context?.state === 'running');
   watch(soundOn, (on) => {
     try {
       localStorage.setItem(SOUND_KEY, on ? 'on' : 'off');
@@ -45,7 +47,15 @@ export function useVatAlert() {
 
   function unlock() {
     const a = audio();
-    if (a && a.state === 'suspended') void a.resume().catch(() => undefined);
+    if (!a) return;
+    if (a.state === 'running') {
+      ready.value = true;
+      return;
+    }
+    void a
+      .resume()
+      .then(() => (ready.value = a.state === 'running'))
+      .catch(() => undefined);
   }
 
   /** Plays short tones at the given offsets, seconds, at `hz`. */
@@ -90,5 +100,5 @@ export function useVatAlert() {
     vibrate([500, 200, 500]);
   }
 
-  return { soundOn, unlock, beep, promptDue, timeUp };
+  return { soundOn, ready, unlock, beep, promptDue, timeUp };
 }

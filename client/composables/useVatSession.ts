@@ -111,6 +111,27 @@ export function useVatSession(vat: VatJournal) {
     onTimeUp: alert.timeUp,
   });
   const pressTable = computed(() => pressRows(stages.value, doc.value.mould));
+  const pressingIndex = computed(() => steps.value.findIndex((st) => st.kind === 'pressing'));
+  const pressStarted = computed(() => pressState.value.runs.some((r) => r.startedAt !== null));
+  const pastPressingStep = computed(
+    () => pressingIndex.value >= 0 && stepTimer.index.value > pressingIndex.value,
+  );
+  /** The press schedule shows on its step, and whenever the make has reached or passed it. */
+  const showPress = computed(
+    () =>
+      stages.value.length > 0 &&
+      (pressMode.value ||
+        pressStarted.value ||
+        pressingIndex.value === -1 ||
+        pastPressingStep.value),
+  );
+  /** Near the top once the press is what the maker is doing; lower down while it is to come. */
+  const pressEarly = computed(
+    () =>
+      pressMode.value ||
+      (showPress.value &&
+        (pressStarted.value || stepTimer.complete.value || pastPressingStep.value)),
+  );
 
   const stepPrompt = useVatPrompt({
     prompts,
@@ -231,6 +252,8 @@ export function useVatSession(vat: VatJournal) {
     pressMode,
     pressTimer,
     pressTable,
+    showPress,
+    pressEarly,
     stepPrompt,
     pressPrompt,
     ramp,

@@ -1,8 +1,9 @@
+import path from 'node:path';
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { JournalDto } from '../../shared/types/journal';
 import { toNewtons } from '../../shared/trade/units';
-import { startE2E, type E2E } from '../support/browser';
+import { SCREENSHOT_DIR, startE2E, type E2E } from '../support/browser';
 import { createMember } from '../support/factories';
 import { journalDocument } from '../support/journal-factory';
 
@@ -66,6 +67,12 @@ describe('At the vat in Chromium, on a phone', () => {
     ) as Promise<T>;
   }
 
+  /** Taps a step or press button; the page ignores a second tap within 0.7 s (wet fingers). */
+  async function tap(page: Page, name: string) {
+    await page.waitForTimeout(800);
+    await page.getByRole('button', { name }).click();
+  }
+
   async function logTemperature(page: Page, value: string) {
     await page.getByLabel('Temperature (°F)').fill(value);
     await page.getByRole('button', { name: 'Log reading' }).click();
@@ -85,14 +92,14 @@ describe('At the vat in Chromium, on a phone', () => {
     await page.getByText('87.8 °F').first().waitFor(); // 31 °C in the member's units
     await e.screenshot(page, 'vat-phone-start');
 
-    await page.getByRole('button', { name: 'Start warming the milk' }).click();
+    await tap(page, 'Start warming the milk');
     await page.getByText('Step 1 of 4 · running').waitFor();
     await page.clock.fastForward('20:00');
     await page.getByText('over the target time').waitFor();
-    await page.getByRole('button', { name: 'Finish step' }).click();
+    await tap(page, 'Finish step');
 
     await page.getByRole('heading', { name: 'Cooking' }).waitFor();
-    await page.getByRole('button', { name: 'Start cooking' }).click();
+    await tap(page, 'Start cooking');
     // A stirring reminder every 5 minutes.
     await page.getByRole('button', { name: 'Remind me: stir every 5 min' }).click();
     await page.getByText('Not stirred yet').waitFor();
@@ -115,6 +122,17 @@ describe('At the vat in Chromium, on a phone', () => {
     await page.getByText('Rising 4 °F per 5 min', { exact: true }).waitFor();
     await page.getByText('The limit is 2 °F per 5 min').waitFor();
     await e.screenshot(page, 'vat-phone-ramp-warning');
+
+    await page.getByRole('button', { name: 'Done: stir the curd' }).click();
+    await page.getByText('Stirred twice').waitFor();
+
+    // What the maker sees at the top of the page: the step, the alert, a way to the logger.
+    await page.evaluate(() => window.scrollTo(0, 0));
+    const jump = page.getByRole('button', { name: 'Log reading ↓' });
+    await jump.waitFor();
+    await page.screenshot({ path: path.join(SCREENSHOT_DIR, 'vat-phone-viewport.png') });
+    await jump.click();
+    await jump.waitFor({ state: 'detached' });
 
     // The connection drops; a reading is kept on the phone and shown as waiting.
     await e.browser.setOffline(true);
@@ -162,23 +180,28 @@ describe('At the vat in Chromium, on a phone', () => {
     await page.clock.setSystemTime(new Date('2026-03-14T14:00:00'));
     await page.goto(`${e.baseUrl}/journals/${journal.id}/vat`);
     await page.getByRole('heading', { name: 'Warming the milk' }).waitFor();
+    // A double tap with wet fingers logs one reading, not two.
+    await page.getByLabel('Temperature (°F)').fill('70');
+    await page.getByRole('button', { name: 'Log reading' }).dblclick();
+    await page.getByText('Logged 70 °F').waitFor();
+    await page.getByRole('heading', { name: 'Readings (1)' }).waitFor();
     for (const step of ['Warming the milk', 'Cooking', 'Cheddaring']) {
       await page.getByRole('heading', { name: step }).waitFor();
-      await page.getByRole('button', { name: 'Skip step →' }).click();
+      await tap(page, 'Skip step →');
     }
     await page.getByRole('heading', { name: 'Pressing' }).waitFor();
     await page.getByText('0.995 psi · 6.86 kPa').first().waitFor(); // 50 lb on an 8-inch mould
 
-    await page.getByRole('button', { name: 'Start pressing: 10 lb' }).click();
+    await tap(page, 'Start pressing: 10 lb');
     await page.getByText('Step 4 of 4 · running').waitFor();
     await page.getByRole('button', { name: 'Remind me: check every 30 min' }).click();
     await page.clock.fastForward('15:00');
     await e.screenshot(page, 'vat-phone-press');
     // Putting on the next weight ends the stage and starts the next one in the same tap.
-    await page.getByRole('button', { name: 'Next stage: 50 lb' }).click();
+    await tap(page, 'Next stage: 50 lb');
     await page.getByText('Stage 2 of 2').waitFor();
     await page.clock.fastForward('12:00:00');
-    await page.getByRole('button', { name: 'Finish pressing' }).click();
+    await tap(page, 'Finish pressing');
 
     await page.getByText('Every step is done').waitFor();
     await page.getByLabel('Weight off the press (lb)').fill('4.2');
@@ -192,6 +215,7 @@ describe('At the vat in Chromium, on a phone', () => {
     await page.waitForFunction(() => !document.body.innerText.includes('Waiting to send'));
     const stored = await api<JournalDto>(page, 'GET', `/api/journals/${journal.id}`);
     expect(stored.wheelStatus).toBe('drying');
+    expect(stored.readings).toHaveLength(1);
     expect(stored.greenWeightKg).toBeCloseTo(4.2 * 0.45359237, 6);
     // The pressing step ran as long as the press: 15 min and 12 h (plus the test's own seconds).
     expect(stored.steps[3].actualMinutes).toBeCloseTo(15 + 12 * 60, 0);

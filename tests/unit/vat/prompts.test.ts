@@ -67,3 +67,14 @@ describe('repeating prompts', () => {
     expect(promptWordingFor('press').defaultMinutes).toBe(30);
   });
 });
+
+describe('the double-tap guard', () => {
+  it('lets one tap through and ignores a second within the moment', async () => {
+    const { createTapGuard } = await import('../../../client/lib/vat/taps');
+    const allow = createTapGuard(700);
+    expect(allow(1000)).toBe(true);
+    expect(allow(1300)).toBe(false);
+    expect(allow(1699)).toBe(false);
+    expect(allow(1700)).toBe(true);
+  });
+});
