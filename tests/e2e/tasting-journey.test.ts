@@ -117,6 +117,23 @@ describe('the tasting journey in Chromium', () => {
     await shows(result, '1 tasting');
     await e.screenshot(page, 'discover-mean-score-phone');
 
+    // The taster changes their mind: the scorecard opens filled in, and the change shows.
+    await page.goto(`${e.baseUrl}/journals/${journalId}`);
+    await card.getByRole('button', { name: 'Change' }).click();
+    await page.getByRole('heading', { name: 'Change your tasting' }).waitFor();
+    await page
+      .getByRole('radiogroup', { name: 'Body and texture' })
+      .getByRole('radio', { name: '6, Like slightly', checked: true })
+      .waitFor();
+    await page
+      .getByRole('radiogroup', { name: 'Overall liking' })
+      .getByRole('radio', { name: '7, Like moderately' })
+      .click();
+    await page.getByRole('button', { name: 'Save the changes' }).click();
+    await page.waitForURL(new RegExp(`/journals/${journalId}#tastings$`));
+    await shows(card, 'Overall: Like moderately');
+    await shows(panel.getByRole('table'), '7.0');
+
     // The reminder goes once: another pass sends nothing more for this wheel.
     await runReminderPass(e.t.ctx);
     const res = await fetch(`${e.baseUrl}/api/dev/mail`);
