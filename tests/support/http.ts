@@ -83,6 +83,14 @@ export class HttpVisitor {
     return (res.body as { token: string }).token;
   }
 
+  /** The cookie and CSRF headers of this visitor, for requests sent some other way. */
+  authHeaders(): Record<string, string> {
+    return {
+      ...(this.cookies.size ? { cookie: this.cookieHeader() } : {}),
+      ...(this.csrfToken ? { 'x-csrf-token': this.csrfToken } : {}),
+    };
+  }
+
   /** Use this CSRF token (as the client does with the one the sign-in answer carries). */
   useCsrf(token: string): void {
     this.csrfToken = token;
