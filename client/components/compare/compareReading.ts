@@ -42,11 +42,14 @@ const RIND_WORDS: Record<RindTreatment, string> = {
   other: 'with another rind treatment',
 };
 
-/** "a", "a or b", "a, b or c". */
-export function orList(words: string[]): string {
+/** "a", "a or b", "a, b or c" (or with "and"). */
+export function orList(words: string[], joiner: 'or' | 'and' = 'or'): string {
   if (words.length <= 1) return words.join('');
-  return `${words.slice(0, -1).join(', ')} or ${words[words.length - 1]}`;
+  return `${words.slice(0, -1).join(', ')} ${joiner} ${words[words.length - 1]}`;
 }
+
+/** The text with its first letter in upper case, to start a sentence. */
+export const capitalise = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1);
 
 /** A count with its noun: "1 tasting", "23 tastings", "1 batch", "4 batches". */
 export function countOf(n: number, per: 'tasting' | 'journal'): string {
@@ -246,7 +249,11 @@ function numericReading(
 
 function categoricalReading(result: CompareResultDto, filters: ReadingFilters): Reading {
   const head = subject(result, filters);
-  const groups = [...result.groups].sort((a, b) => b.mean - a.mean);
+  // Style names are proper names; "waxed" or "cow's milk" read in lower case mid-sentence.
+  const name = (label: string) => (result.x === 'style' ? label : label.toLowerCase());
+  const groups = [...result.groups]
+    .sort((a, b) => b.mean - a.mean)
+    .map((g) => ({ ...g, label: name(g.label) }));
   const what = outcomeName(result.y);
   const value = (v: number) => formatOutcome(result.y, v);
   const text: string[] = [];
@@ -261,10 +268,12 @@ function categoricalReading(result: CompareResultDto, filters: ReadingFilters): 
         `and the lowest for ${bottom.label} (${value(bottom.mean)}, n = ${bottom.n}).`,
     );
     const thin = groups.filter((g) => g.n < 5).map((g) => g.label);
-    if (thin.length)
+    if (thin.length === groups.length)
+      text.push('Every group has fewer than 5 points, so these means say little on their own.');
+    else if (thin.length)
       text.push(
-        `${orList(thin)} ${thin.length === 1 ? 'has' : 'have'} fewer than 5 points, ` +
-          `so ${thin.length === 1 ? 'its' : 'their'} mean says little on its own.`,
+        `${capitalise(orList(thin, 'and'))} ${thin.length === 1 ? 'has' : 'have'} fewer than 5 ` +
+          `points, so ${thin.length === 1 ? 'its mean says little on its' : 'their means say little on their'} own.`,
       );
     text.push(
       'The boxes show where the middle half of the scores lie; where boxes overlap, the groups ' +
