@@ -82,8 +82,8 @@ export function filtersToParams(filters: JournalFilters): JournalListParams {
   if (filters.rind.length) params.rind = filters.rind;
   if (filters.agingMin !== null) params.agingMin = filters.agingMin;
   if (filters.agingMax !== null) params.agingMax = filters.agingMax;
-  if ((filters.agingMin !== null || filters.agingMax !== null) && filters.agingBy !== 'target')
-    params.agingBy = filters.agingBy;
+  // Kept even before a range is typed, so the switch does not spring back.
+  if (filters.agingBy !== 'target') params.agingBy = filters.agingBy;
   if (filters.minScore !== null) params.minScore = filters.minScore;
   if (filters.maker.trim()) params.maker = filters.maker.trim().replace(/^@/, '').toLowerCase();
   if (filters.q.trim()) params.q = filters.q.trim();

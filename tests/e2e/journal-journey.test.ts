@@ -233,6 +233,17 @@ describe('the first journal journey in Chromium', () => {
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.getByRole('heading', { name: 'Discover make journals' }).waitFor();
 
+    // Before the first save, what is typed survives a reload in this browser.
+    await page.goto(`${e.baseUrl}/journals/new`);
+    await page.getByLabel('Title').fill('Half-remembered gouda');
+    await page.getByText('Not saved yet (kept in this browser)').waitFor();
+    await page.waitForTimeout(600);
+    await page.reload();
+    await page.getByText('We kept what you typed').waitFor();
+    expect(await page.getByLabel('Title').inputValue()).toBe('Half-remembered gouda');
+    await page.getByRole('button', { name: 'Start afresh instead' }).click();
+    expect(await page.getByLabel('Title').inputValue()).toBe('');
+
     await page.goto(`${e.baseUrl}/journals/${source.id}`);
     await page.getByRole('button', { name: 'Start a batch from this' }).click();
     const dialog = page.getByRole('dialog');
