@@ -125,6 +125,12 @@ export const routes: RouteRecordRaw[] = [
     meta: { title: 'Maker' },
   },
   {
+    path: '/notifications',
+    name: 'notifications',
+    component: () => import('../views/members/NotificationsView.vue'),
+    meta: { requiresAuth: true, title: 'Notifications' },
+  },
+  {
     path: '/admin',
     name: 'admin',
     component: () => import('../views/admin/AdminView.vue'),
