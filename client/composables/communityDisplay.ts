@@ -1,6 +1,11 @@
 // Words and times for the community screens: notifications, comments, the moderation queue.
 import { AUDIT_ACTION_LABELS, REPORT_REASON_LABELS } from '@shared/constants/community';
-import type { AuditAction, ReportReason } from '@shared/constants/community';
+import type {
+  AuditAction,
+  ReportReason,
+  ReportStatus,
+  ReportTarget,
+} from '@shared/constants/community';
 import type { NotificationDto } from '@shared/types/community';
 
 /** "just now", "5 minutes ago", "3 hours ago", "2 days ago", then the date. */
@@ -62,6 +67,19 @@ export function notificationHeadline(n: NotificationDto): string {
       return `Your comment on ${where} was read by a moderator and is now visible`;
   }
 }
+
+export const REPORT_STATUS_LABELS: Record<ReportStatus, string> = {
+  open: 'Open',
+  actioned: 'Acted on',
+  dismissed: 'Dismissed',
+};
+
+export const TARGET_LABELS: Record<ReportTarget, string> = {
+  journal: 'Journal',
+  photo: 'Photo',
+  tasting: 'Tasting',
+  comment: 'Comment',
+};
 
 export const reasonLabel = (reason: ReportReason) => REPORT_REASON_LABELS[reason] ?? reason;
 export const auditLabel = (action: AuditAction) => AUDIT_ACTION_LABELS[action] ?? action;
