@@ -107,8 +107,34 @@ export const journals = mysqlTable(
       columns: [t.sourceJournalId],
       foreignColumns: [t.id],
     }).onDelete('set null'),
-    // Discover: what is listed is public + published + not hidden; the filters follow.
-    index('journals_listing_idx').on(t.status, t.visibility, t.makeDate),
+    // Discover: what is listed is published + public + not hidden, so every listing index
+    // starts with those three; then the sort (newest, best) or the filter to count (style,
+    // aging), so a page is an ordered index scan that stops early and a count reads the
+    // index only. Checked by tests/api/discover-explain.test.ts; measured by npm run bench.
+    index('journals_listed_newest_idx').on(t.status, t.visibility, t.hiddenAt, t.makeDate),
+    index('journals_listed_best_idx').on(
+      t.status,
+      t.visibility,
+      t.hiddenAt,
+      t.meanOverall,
+      t.tastingCount,
+    ),
+    index('journals_listed_style_best_idx').on(
+      t.status,
+      t.visibility,
+      t.hiddenAt,
+      t.styleId,
+      t.meanOverall,
+      t.tastingCount,
+    ),
+    index('journals_listed_style_aging_idx').on(
+      t.status,
+      t.visibility,
+      t.hiddenAt,
+      t.styleId,
+      t.agingTargetDays,
+    ),
+    index('journals_listed_aging_idx').on(t.status, t.visibility, t.hiddenAt, t.agingTargetDays),
     index('journals_style_idx').on(t.styleId, t.makeDate),
     index('journals_user_idx').on(t.userId, t.makeDate),
     index('journals_species_idx').on(t.species),

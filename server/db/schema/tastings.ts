@@ -67,6 +67,19 @@ export const tastings = mysqlTable(
       foreignColumns: [users.id],
     }).onDelete('cascade'),
     index('tastings_journal_idx').on(t.journalId, t.tastedOn),
+    // Compare reads every visible tasting of the matching journals: this index holds all it
+    // needs (scores and age), so it never touches the rows.
+    index('tastings_compare_idx').on(
+      t.journalId,
+      t.hiddenAt,
+      t.overall,
+      t.appearance,
+      t.aroma,
+      t.flavour,
+      t.texture,
+      t.finish,
+      t.ageDays,
+    ),
     index('tastings_taster_idx').on(t.tasterId),
     index('tastings_age_idx').on(t.ageDays),
   ],
