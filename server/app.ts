@@ -7,6 +7,7 @@ import type { AppContext } from './context';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { authenticate } from './middleware/authenticate';
 import { requireCsrf } from './middleware/csrf';
+import { forgetCachedReads } from './middleware/read-cache';
 import { sessionMiddleware } from './middleware/session';
 import { adminRouter } from './routes/admin.routes';
 import { authRouter } from './routes/auth.routes';
@@ -76,6 +77,7 @@ export function createApp(ctx: AppContext): Express {
   const sessions = sessionMiddleware(ctx);
   ctx.onClose(sessions.close);
   app.use('/api', sessions.handler, requireCsrf, authenticate(ctx));
+  app.use('/api', forgetCachedReads(ctx));
 
   app.use('/api/auth', authRouter(ctx));
   // Before the admin router, which answers everything under /api/admin.

@@ -27,6 +27,7 @@ const EnvSchema = z.object({
   SERVE_CLIENT: bool.default(true),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   JOBS_ENABLED: bool.default(true),
+  READ_CACHE_SECONDS: z.coerce.number().min(0).max(300).optional(),
   STORAGE: z.enum(['local', 's3']).default('local'),
   S3_ENDPOINT: z.url().optional(),
   S3_BUCKET: z
@@ -62,6 +63,8 @@ export type AppConfig = Readonly<{
   logLevel: string;
   jobsEnabled: boolean;
   storage: StorageConfig;
+  /** How long public Discover pages and Compare answers are reused; 0 turns it off. */
+  readCacheSeconds: number;
 }>;
 
 /** Where photos go: a local folder, or an S3-compatible object store. */
@@ -133,6 +136,8 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     logLevel: e.LOG_LEVEL,
     jobsEnabled: e.JOBS_ENABLED,
     storage,
+    // Off in tests, which read right after they write; a few seconds elsewhere.
+    readCacheSeconds: e.READ_CACHE_SECONDS ?? (e.NODE_ENV === 'test' ? 0 : 5),
   });
 }
 

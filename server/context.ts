@@ -4,6 +4,7 @@ import type { AppConfig } from './config';
 import { createDatabase, type DatabaseHandle } from './db/client';
 import { createLimiters, type Limiters } from './lib/rate-limit';
 import { createLogger } from './lib/logger';
+import { TtlCache } from './lib/ttl-cache';
 import { S3Storage } from './lib/s3-storage';
 import { LocalStorage, type PhotoStorage } from './lib/storage';
 import { LocalMailbox } from './mail/local-mailbox';
@@ -20,6 +21,11 @@ export type AppContext = {
   limiters: Limiters;
   /** Where photo renditions are stored: UPLOADS_DIR/photos, or an S3 bucket (STORAGE=s3). */
   storage: PhotoStorage;
+  /**
+   * Answers that do not depend on who asks (public Discover pages, Compare for signed-out
+   * visitors), reused for READ_CACHE_SECONDS; cleared on this server's own journal writes.
+   */
+  readCache: TtlCache<unknown>;
   /** Registers something to close (timers, stores) before the pool closes. */
   onClose: (closer: () => Promise<void> | void) => void;
   /** Closes everything the context opened, in order. */
@@ -58,6 +64,7 @@ export async function createContext(
     mailbox,
     limiters,
     storage,
+    readCache: new TtlCache<unknown>(config.readCacheSeconds * 1000),
     onClose: (closer) => closers.push(closer),
     close: async () => {
       for (const closer of closers.reverse()) await closer();

@@ -1,6 +1,7 @@
 import { sql, type SQL } from 'drizzle-orm';
 import type { CompareOutcomeKey, CompareParameterKey } from '../../shared/constants/compare';
 import type { Database } from '../db/client';
+import type { RegressionSums } from '../../shared/trade/stats';
 
 // Column expressions for every Compare key (aliases: j journals, t tastings, s styles, u users).
 const JOURNAL_X: Partial<Record<CompareParameterKey, SQL>> = {
@@ -85,6 +86,56 @@ function conditions(f: CompareFilter): SQL {
   return sql.join(parts, sql` AND `);
 }
 
+type Shape = { names: boolean };
+
+// The SELECT of one comparison's points, without order or limit: one row per visible
+// tasting, or one per journal with the mean of its visible tastings. Without names, the
+// users join is left out (every journal has a maker, so the rows are the same) and styles is
+// joined only when a filter or x needs it.
+function pointsQuery(
+  x: CompareParameterKey,
+  y: CompareOutcomeKey,
+  per: 'tasting' | 'journal',
+  filter: CompareFilter,
+  shape: Shape,
+): SQL {
+  const where = conditions(filter);
+  const maker = shape.names ? sql`u.handle` : sql`NULL`;
+  const joins = sql.join(
+    [
+      shape.names ? sql`JOIN users u ON u.id = j.user_id` : sql``,
+      shape.names || x === 'style' ? sql`JOIN styles s ON s.id = j.style_id` : sql``,
+    ],
+    sql` `,
+  );
+  const tastingY = TASTING_Y[y];
+  if (tastingY) {
+    const xExpr = x === 'ageDays' ? sql`t.age_days` : JOURNAL_X[x]!;
+    return per === 'tasting'
+      ? sql`SELECT ${xExpr} AS x, ${tastingY} AS y, j.id AS journalId, j.title AS title, ${maker} AS maker, t.id AS tastingId
+              FROM tastings t JOIN journals j ON j.id = t.journal_id ${joins}
+              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}`
+      : sql`SELECT ${x === 'ageDays' ? sql`AVG(t.age_days)` : sql`MIN(${xExpr})`} AS x, AVG(${tastingY}) AS y, j.id AS journalId, MIN(j.title) AS title, MIN(${maker}) AS maker, NULL AS tastingId
+              FROM tastings t JOIN journals j ON j.id = t.journal_id ${joins}
+              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}
+              GROUP BY j.id`;
+  }
+  const yExpr = JOURNAL_Y[y]!;
+  const xExpr = x === 'ageDays' ? sql`j.last_tasted_age_days` : JOURNAL_X[x]!;
+  return sql`SELECT ${xExpr} AS x, ${yExpr} AS y, j.id AS journalId, j.title AS title, ${maker} AS maker, NULL AS tastingId
+              FROM journals j ${joins}
+              WHERE ${xExpr} IS NOT NULL AND ${yExpr} IS NOT NULL AND ${where}`;
+}
+
+const toRow = (x: CompareParameterKey) => (r: CompareRow) => ({
+  x: CATEGORY_KEYS.has(x) ? String(r.x) : Number(r.x),
+  y: Number(r.y),
+  journalId: Number(r.journalId),
+  title: r.title,
+  maker: r.maker,
+  tastingId: r.tastingId === null ? null : Number(r.tastingId),
+});
+
 /**
  * The points of one comparison, filtered and (per journal) aggregated in SQL: one row per
  * visible tasting, or one per journal with the mean of its visible tastings.
@@ -96,36 +147,64 @@ export async function comparePoints(
   per: 'tasting' | 'journal',
   filter: CompareFilter,
 ): Promise<CompareRow[]> {
-  const where = conditions(filter);
-  const tastingY = TASTING_Y[y];
-  let query: SQL;
-  if (tastingY) {
-    const xExpr = x === 'ageDays' ? sql`t.age_days` : JOURNAL_X[x]!;
-    query =
-      per === 'tasting'
-        ? sql`SELECT ${xExpr} AS x, ${tastingY} AS y, j.id AS journalId, j.title AS title, u.handle AS maker, t.id AS tastingId
-              FROM tastings t JOIN journals j ON j.id = t.journal_id JOIN users u ON u.id = j.user_id JOIN styles s ON s.id = j.style_id
-              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}
-              ORDER BY j.id, t.id LIMIT 200000`
-        : sql`SELECT ${x === 'ageDays' ? sql`AVG(t.age_days)` : sql`MIN(${xExpr})`} AS x, AVG(${tastingY}) AS y, j.id AS journalId, MIN(j.title) AS title, MIN(u.handle) AS maker, NULL AS tastingId
-              FROM tastings t JOIN journals j ON j.id = t.journal_id JOIN users u ON u.id = j.user_id JOIN styles s ON s.id = j.style_id
-              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}
-              GROUP BY j.id ORDER BY j.id LIMIT 200000`;
-  } else {
-    const yExpr = JOURNAL_Y[y]!;
-    const xExpr = x === 'ageDays' ? sql`j.last_tasted_age_days` : JOURNAL_X[x]!;
-    query = sql`SELECT ${xExpr} AS x, ${yExpr} AS y, j.id AS journalId, j.title AS title, u.handle AS maker, NULL AS tastingId
-                FROM journals j JOIN users u ON u.id = j.user_id JOIN styles s ON s.id = j.style_id
-                WHERE ${xExpr} IS NOT NULL AND ${yExpr} IS NOT NULL AND ${where}
-                ORDER BY j.id LIMIT 200000`;
+  const inner = pointsQuery(x, y, per, filter, { names: true });
+  const [rows] = await db.execute(
+    sql`SELECT * FROM (${inner}) q ORDER BY q.journalId, q.tastingId LIMIT 200000`,
+  );
+  return (rows as unknown as CompareRow[]).map(toRow(x));
+}
+
+/** The count and sums of a numeric comparison over every point, added up in SQL. */
+export async function compareSums(
+  db: Database,
+  x: CompareParameterKey,
+  y: CompareOutcomeKey,
+  per: 'tasting' | 'journal',
+  filter: CompareFilter,
+): Promise<RegressionSums> {
+  const inner = pointsQuery(x, y, per, filter, { names: false });
+  const [rows] = await db.execute(sql`
+    SELECT COUNT(*) AS n, SUM(q.x) AS sumX, SUM(q.y) AS sumY, SUM(q.x * q.x) AS sumXX,
+           SUM(q.x * q.y) AS sumXY, SUM(q.y * q.y) AS sumYY, MIN(q.x) AS minX, MAX(q.x) AS maxX
+    FROM (${inner}) q`);
+  const [r] = rows as unknown as Record<keyof RegressionSums, number | string | null>[];
+  const num = (v: number | string | null) => Number(v ?? 0);
+  return {
+    n: num(r.n),
+    sumX: num(r.sumX),
+    sumY: num(r.sumY),
+    sumXX: num(r.sumXX),
+    sumXY: num(r.sumXY),
+    sumYY: num(r.sumYY),
+    minX: num(r.minX),
+    maxX: num(r.maxX),
+  };
+}
+
+/**
+ * At most about `limit` of a comparison's points for the chart, spread over the whole set:
+ * every step-th tasting (or journal) by id, step = ⌈n / limit⌉.
+ */
+export async function compareSample(
+  db: Database,
+  x: CompareParameterKey,
+  y: CompareOutcomeKey,
+  per: 'tasting' | 'journal',
+  filter: CompareFilter,
+  n: number,
+  limit: number,
+  { ordered = true }: { ordered?: boolean } = {},
+): Promise<CompareRow[]> {
+  const step = Math.max(1, Math.ceil(n / limit));
+  const inner = pointsQuery(x, y, per, filter, { names: true });
+  // Unordered, the server stops after `limit` rows instead of sorting every point first.
+  const [rows] = await db.execute(sql`
+    SELECT * FROM (${inner}) q
+    WHERE MOD(COALESCE(q.tastingId, q.journalId), ${step}) = 0
+    ${ordered ? sql`ORDER BY q.journalId, q.tastingId` : sql``} LIMIT ${limit}`);
+  const result = (rows as unknown as CompareRow[]).map(toRow(x));
+  if (!ordered) {
+    result.sort((a, b) => a.journalId - b.journalId || (a.tastingId ?? 0) - (b.tastingId ?? 0));
   }
-  const [rows] = await db.execute(query);
-  return (rows as unknown as CompareRow[]).map((r) => ({
-    x: CATEGORY_KEYS.has(x) ? String(r.x) : Number(r.x),
-    y: Number(r.y),
-    journalId: Number(r.journalId),
-    title: r.title,
-    maker: r.maker,
-    tastingId: r.tastingId === null ? null : Number(r.tastingId),
-  }));
+  return result;
 }

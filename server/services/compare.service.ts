@@ -2,11 +2,20 @@ import { COMPARE_PARAMETERS, MIN_MEANINGFUL_POINTS } from '../../shared/constant
 import { HEAT_TREATMENT_LABELS, RIND_LABELS, SPECIES_LABELS } from '../../shared/constants/journal';
 import { STYLES } from '../../shared/constants/styles';
 import type { CompareQuery } from '../../shared/schemas/compare';
-import { groupSummaries, linearRegression } from '../../shared/trade/stats';
+import {
+  groupSummaries,
+  linearRegression,
+  linearRegressionFromSums,
+} from '../../shared/trade/stats';
 import type { CompareResultDto, SideBySideDto, SideBySideRowDto } from '../../shared/types/compare';
 import type { AppContext } from '../context';
 import type { AuthMember } from '../middleware/authenticate';
-import { comparePoints, type CompareFilter } from '../repositories/compare.repository';
+import {
+  comparePoints,
+  compareSample,
+  compareSums,
+  type CompareFilter,
+} from '../repositories/compare.repository';
 import { findJournalById, findStyleIdsBySlugs } from '../repositories/journals.repository';
 import { listTastingsForJournal } from '../repositories/tastings.repository';
 import { getJournal } from './journals.service';
@@ -40,6 +49,23 @@ export async function compare(
   viewer: AuthMember | undefined,
   q: CompareQuery,
 ): Promise<CompareResultDto> {
+  // A signed-out visitor's answer covers only what is listed, the same for all of them.
+  if (!viewer) {
+    return ctx.readCache.getOrLoad(`compare:${JSON.stringify(q)}`, () =>
+      computeCompare(ctx, viewer, q),
+    ) as Promise<CompareResultDto>;
+  }
+  return computeCompare(ctx, viewer, q);
+}
+
+/** At most this many points go to the chart; the fit always uses every point. */
+export const MAX_CHART_POINTS = 2000;
+
+async function computeCompare(
+  ctx: AppContext,
+  viewer: AuthMember | undefined,
+  q: CompareQuery,
+): Promise<CompareResultDto> {
   const db = ctx.database.db;
   const filter: CompareFilter = {
     viewerId: viewer?.id,
@@ -57,10 +83,9 @@ export async function compare(
   const parameter = COMPARE_PARAMETERS.find((p) => p.key === q.x)!;
   const outcomeIsJournalLevel = q.y === 'yieldPercent' || q.y === 'moistureLossPercent';
   const per = outcomeIsJournalLevel ? 'journal' : q.per;
-  const rows = await comparePoints(db, q.x, q.y, per, filter);
-  const base = { x: q.x, y: q.y, per, n: rows.length } as const;
-
   if (parameter.kind === 'category') {
+    const rows = await comparePoints(db, q.x, q.y, per, filter);
+    const base = { x: q.x, y: q.y, per, n: rows.length } as const;
     const labels = CATEGORY_LABELS[q.x] ?? {};
     const groups = rows.length
       ? groupSummaries(
@@ -91,11 +116,27 @@ export async function compare(
     };
   }
 
-  const points = rows.map((r) => ({ ...r, x: Number(r.x) }));
-  const regression = linearRegression(
-    points.map((p) => p.x),
-    points.map((p) => p.y),
-  );
+  // A first page of points: when that is all of them, the fit comes from the points
+  // themselves; when there are more, from sums added up in SQL, with a spread-out sample of
+  // points for the chart (a few hundred thousand points would be megabytes of JSON).
+  const first = await compareSample(db, q.x, q.y, per, filter, 0, MAX_CHART_POINTS + 1, {
+    ordered: false,
+  });
+  let points = first.map((r) => ({ ...r, x: Number(r.x) }));
+  let regression;
+  if (points.length <= MAX_CHART_POINTS) {
+    regression = linearRegression(
+      points.map((p) => p.x),
+      points.map((p) => p.y),
+    );
+  } else {
+    const sums = await compareSums(db, q.x, q.y, per, filter);
+    regression = linearRegressionFromSums(sums);
+    points = (await compareSample(db, q.x, q.y, per, filter, sums.n, MAX_CHART_POINTS)).map(
+      (r) => ({ ...r, x: Number(r.x) }),
+    );
+  }
+  const base = { x: q.x, y: q.y, per, n: regression.n } as const;
   const fit = regression.fit;
   return {
     ...base,

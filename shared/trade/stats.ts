@@ -198,3 +198,89 @@ export function linearRegression(xs: readonly number[], ys: readonly number[]): 
     },
   };
 }
+
+/** The sufficient statistics of a straight-line fit: counts and sums, as SQL can add them up. */
+export interface RegressionSums {
+  n: number;
+  sumX: number;
+  sumY: number;
+  sumXX: number;
+  sumXY: number;
+  sumYY: number;
+  minX: number;
+  maxX: number;
+}
+
+// The same least-squares line, r and standard errors as linearRegression, from sums instead
+// of the points (textbook formulas: Sxx = Σx² − (Σx)²/n, slope = Sxy/Sxx, SE = s/√Sxx); used
+// when the points are too many to fetch. Student's t from jstat.
+/** Returns the y-on-x fit from sums (same result as linearRegression on the points). */
+export function linearRegressionFromSums(sums: RegressionSums): RegressionResult {
+  const { n } = sums;
+  if (n < 3) return { n, meaningful: false, reason: 'too-few-points', fit: null };
+  const sxx = sums.sumXX - (sums.sumX * sums.sumX) / n;
+  if (sums.minX === sums.maxX || !(sxx > 0)) {
+    return { n, meaningful: false, reason: 'no-spread-in-x', fit: null };
+  }
+  const meanX = sums.sumX / n;
+  const meanY = sums.sumY / n;
+  const sxy = sums.sumXY - (sums.sumX * sums.sumY) / n;
+  const syy = Math.max(0, sums.sumYY - (sums.sumY * sums.sumY) / n);
+  const slope = sxy / sxx;
+  const intercept = meanY - slope * meanX;
+  const r = syy > 0 ? Math.max(-1, Math.min(1, sxy / Math.sqrt(sxx * syy))) : null;
+  const degreesOfFreedom = n - 2;
+  const residualSumOfSquares = Math.max(0, syy - slope * sxy);
+  const residualStandardDeviation = Math.sqrt(residualSumOfSquares / degreesOfFreedom);
+  const slopeStandardError = residualStandardDeviation / Math.sqrt(sxx);
+  const interceptStandardError =
+    residualStandardDeviation * Math.sqrt(1 / n + (meanX * meanX) / sxx);
+  const tCritical95 = jStat.studentt.inv(0.975, degreesOfFreedom);
+  const halfWidth = tCritical95 * slopeStandardError;
+  const meaningful = n >= MIN_MEANINGFUL_N;
+  return {
+    n,
+    meaningful,
+    reason: meaningful ? null : 'too-few-points',
+    fit: {
+      slope,
+      intercept,
+      r,
+      rSquared: r === null ? null : r * r,
+      slopeStandardError,
+      interceptStandardError,
+      residualStandardDeviation,
+      residualSumOfSquares,
+      degreesOfFreedom,
+      tCritical95,
+      slopeConfidenceInterval95: [slope - halfWidth, slope + halfWidth],
+    },
+  };
+}
+
+/** Adds up the regression sums of some points (to check and to combine with SQL's). */
+export function regressionSums(xs: readonly number[], ys: readonly number[]): RegressionSums {
+  let sumX = 0;
+  let sumY = 0;
+  let sumXX = 0;
+  let sumXY = 0;
+  let sumYY = 0;
+  xs.forEach((x, i) => {
+    const y = ys[i];
+    sumX += x;
+    sumY += y;
+    sumXX += x * x;
+    sumXY += x * y;
+    sumYY += y * y;
+  });
+  return {
+    n: xs.length,
+    sumX,
+    sumY,
+    sumXX,
+    sumXY,
+    sumYY,
+    minX: xs.length ? Math.min(...xs) : 0,
+    maxX: xs.length ? Math.max(...xs) : 0,
+  };
+}
