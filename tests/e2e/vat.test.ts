@@ -75,7 +75,7 @@ describe('At the vat in Chromium, on a phone', () => {
 
   async function logTemperature(page: Page, value: string) {
     await page.getByLabel('Temperature (°F)').fill(value);
-    await page.getByRole('button', { name: 'Log reading' }).click();
+    await page.getByRole('button', { name: 'Log reading', exact: true }).click();
     await page.getByText(`Logged ${value} °F`).waitFor();
   }
 
@@ -182,7 +182,7 @@ describe('At the vat in Chromium, on a phone', () => {
     await page.getByRole('heading', { name: 'Warming the milk' }).waitFor();
     // A double tap with wet fingers logs one reading, not two.
     await page.getByLabel('Temperature (°F)').fill('70');
-    await page.getByRole('button', { name: 'Log reading' }).dblclick();
+    await page.getByRole('button', { name: 'Log reading', exact: true }).dblclick();
     await page.getByText('Logged 70 °F').waitFor();
     await page.getByRole('heading', { name: 'Readings (1)' }).waitFor();
     for (const step of ['Warming the milk', 'Cooking', 'Cheddaring']) {
