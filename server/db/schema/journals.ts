@@ -135,6 +135,19 @@ export const journals = mysqlTable(
       t.agingTargetDays,
     ),
     index('journals_listed_aging_idx').on(t.status, t.visibility, t.hiddenAt, t.agingTargetDays),
+    // Every other filter's count (milk, heat, rind, tasted age, score) reads this narrow
+    // index instead of the rows.
+    index('journals_listed_facets_idx').on(
+      t.status,
+      t.visibility,
+      t.hiddenAt,
+      t.species,
+      t.heatTreatment,
+      t.rindTreatment,
+      t.lastTastedAgeDays,
+      t.agingTargetDays,
+      t.meanOverall,
+    ),
     index('journals_style_idx').on(t.styleId, t.makeDate),
     index('journals_user_idx').on(t.userId, t.makeDate),
     index('journals_species_idx').on(t.species),

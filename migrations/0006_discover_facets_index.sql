@@ -1,0 +1,1 @@
+CREATE INDEX `journals_listed_facets_idx` ON `journals` (`status`,`visibility`,`hidden_at`,`species`,`heat_treatment`,`rind_treatment`,`last_tasted_age_days`,`aging_target_days`,`mean_overall`);
