@@ -7,6 +7,7 @@ import type { AppContext } from './context';
 import { apiNotFound, errorHandler } from './middleware/error-handler';
 import { authenticate } from './middleware/authenticate';
 import { requireCsrf } from './middleware/csrf';
+import { compressedAssets } from './middleware/compressed-assets';
 import { forgetCachedReads } from './middleware/read-cache';
 import { sessionMiddleware } from './middleware/session';
 import { adminRouter } from './routes/admin.routes';
@@ -113,6 +114,7 @@ export function createApp(ctx: AppContext): Express {
 /** Serves the Vite build: hashed assets cached for a year, index.html for every app route. */
 function mountClient(app: Express, dist: string): void {
   const indexHtml = path.join(dist, 'index.html');
+  app.use('/assets', compressedAssets(path.join(dist, 'assets')));
   app.use(
     '/assets',
     express.static(path.join(dist, 'assets'), {

@@ -64,7 +64,7 @@ export async function createContext(
     mailbox,
     limiters,
     storage,
-    readCache: new TtlCache<unknown>(config.readCacheSeconds * 1000),
+    readCache: new TtlCache<unknown>(config.readCacheSeconds * 1000, 200),
     onClose: (closer) => closers.push(closer),
     close: async () => {
       for (const closer of closers.reverse()) await closer();

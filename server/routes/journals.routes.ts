@@ -10,6 +10,7 @@ import {
   weighInSchema,
 } from '../../shared/schemas/journal';
 import type { AppContext } from '../context';
+import { sendSharedJson } from '../lib/cached-json';
 import { currentMember, requireMember } from '../middleware/authenticate';
 import { validate, valid } from '../middleware/validate';
 import * as journals from '../services/journals.service';
@@ -26,9 +27,15 @@ export function journalsRouter(ctx: AppContext): Router {
 
   router.get('/', validate('query', journalListQuerySchema), async (req, res) => {
     const query = valid(res, 'query', journalListQuerySchema);
-    const page = await journals.listJournalsFor(ctx, req.member, query);
-    if (query.mine) res.setHeader('Cache-Control', 'no-store');
-    res.json(page);
+    if (query.mine) {
+      res.setHeader('Cache-Control', 'no-store');
+      res.json(await journals.listJournalsFor(ctx, req.member, query));
+      return;
+    }
+    // Discover lists only what is listed, the same page for every viewer.
+    await sendSharedJson(ctx, res, `discover:${JSON.stringify(query)}`, () =>
+      journals.listJournalsFor(ctx, req.member, query),
+    );
   });
 
   // Before /:id, so "export" is never read as an id.
@@ -56,9 +63,14 @@ export function journalsRouter(ctx: AppContext): Router {
   });
 
   router.get('/:id', validate('params', idParams), async (req, res) => {
-    const journal = await journals.getJournal(ctx, req.member, valid(res, 'params', idParams).id);
+    const id = valid(res, 'params', idParams).id;
     res.setHeader('Cache-Control', 'private, no-cache');
-    res.json(journal);
+    if (req.member) {
+      res.json(await journals.getJournal(ctx, req.member, id));
+      return;
+    }
+    // What a signed-out reader may see of a journal is the same for all of them.
+    await sendSharedJson(ctx, res, `journal:${id}`, () => journals.getJournal(ctx, undefined, id));
   });
 
   router.put(

@@ -49,12 +49,6 @@ export async function compare(
   viewer: AuthMember | undefined,
   q: CompareQuery,
 ): Promise<CompareResultDto> {
-  // A signed-out visitor's answer covers only what is listed, the same for all of them.
-  if (!viewer) {
-    return ctx.readCache.getOrLoad(`compare:${JSON.stringify(q)}`, () =>
-      computeCompare(ctx, viewer, q),
-    ) as Promise<CompareResultDto>;
-  }
   return computeCompare(ctx, viewer, q);
 }
 

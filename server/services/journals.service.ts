@@ -290,19 +290,8 @@ const emptyPage = (query: JournalListQuery) => ({
  * or, with mine, the viewer's own journals of every status.
  */
 export async function listJournalsFor(ctx: AppContext, viewer: Viewer, query: JournalListQuery) {
-  if (query.mine && !viewer) throw new UnauthorizedError('Sign in to see your journals.');
-  // Discover pages are the same for every viewer (only what is listed), so one answer per
-  // query serves them all for a few seconds.
-  if (!query.mine) {
-    return ctx.readCache.getOrLoad(`discover:${JSON.stringify(query)}`, () =>
-      findJournalsPage(ctx, viewer, query),
-    ) as ReturnType<typeof findJournalsPage>;
-  }
-  return findJournalsPage(ctx, viewer, query);
-}
-
-async function findJournalsPage(ctx: AppContext, viewer: Viewer, query: JournalListQuery) {
   const db = ctx.database.db;
+  if (query.mine && !viewer) throw new UnauthorizedError('Sign in to see your journals.');
   const filter: JournalListFilter = {
     listedOnly: !query.mine,
     ownerId: query.mine ? viewer?.id : undefined,
