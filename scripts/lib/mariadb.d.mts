@@ -14,6 +14,7 @@ export declare class PrivateMariaDb {
   readonly port: number;
   readonly socket: string;
   readonly errorLog: string;
+  readonly tmpDir: string;
   readonly pidFile: string;
   readonly bin: MariadbBinaries;
   child: import('node:child_process').ChildProcess | null;

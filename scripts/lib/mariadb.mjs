@@ -45,6 +45,9 @@ export class PrivateMariaDb {
     this.port = port;
     this.bin = binaries;
     this.errorLog = path.join(dir, 'error.log');
+    // Its own temporary folder: /tmp is shared with every other program on the machine, and
+    // a clean-up there must not take an internal temporary table from under a query.
+    this.tmpDir = path.join(dir, 'tmp');
     this.pidFile = path.join(dir, 'mysqld.pid');
     const socket = path.join(dir, 'mysqld.sock');
     // Unix socket paths are limited to about 107 bytes; fall back to a short temp path.
@@ -66,8 +69,10 @@ export class PrivateMariaDb {
   async init() {
     if (this.initialised) return;
     mkdirSync(this.dataDir, { recursive: true });
+    mkdirSync(this.tmpDir, { recursive: true });
     const result = await capture(this.bin.installDb, [
       '--no-defaults',
+      `--tmpdir=${this.tmpDir}`,
       `--user=${os.userInfo().username}`,
       '--basedir=/usr',
       `--datadir=${this.dataDir}`,
@@ -98,8 +103,10 @@ export class PrivateMariaDb {
       return;
     }
     const log = openSync(this.errorLog, 'a');
+    mkdirSync(this.tmpDir, { recursive: true });
     const args = [
       '--no-defaults',
+      `--tmpdir=${this.tmpDir}`,
       `--user=${os.userInfo().username}`,
       `--datadir=${this.dataDir}`,
       `--port=${this.port}`,

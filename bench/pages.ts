@@ -1,0 +1,128 @@
+// Page metrics in headless Chromium (Debian's, through playwright-core): Largest Contentful
+// Paint and Cumulative Layout Shift from the web-vitals package, and the JavaScript a page
+// loads, each page opened cold (a fresh browser context) a few times; the median is kept.
+import { readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium } from 'playwright-core';
+
+export type PageResult = {
+  name: string;
+  path: string;
+  lcpMs: number;
+  cls: number;
+  scripts: number;
+  jsBytes: number;
+  jsBytesOnWire: number;
+  jsEncodings: string[];
+};
+
+// The package's exports map leaves the IIFE build out, so it is found by its path.
+const WEB_VITALS = path.resolve(
+  path.dirname(fileURLToPath(import.meta.url)),
+  '../node_modules/web-vitals/dist/web-vitals.iife.js',
+);
+
+const median = (values: number[]) =>
+  [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
+/** Measures each page `runs` times, cold; resolves with the medians. */
+export async function measurePages(
+  baseUrl: string,
+  pages: { name: string; path: string }[],
+  runs = 3,
+): Promise<PageResult[]> {
+  const browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--no-first-run',
+      '--disable-background-networking',
+    ],
+  });
+  const results: PageResult[] = [];
+  try {
+    for (const target of pages) {
+      const samples: Omit<PageResult, 'name' | 'path'>[] = [];
+      for (let run = 0; run < runs; run++) {
+        const context = await browser.newContext({
+          viewport: { width: 1280, height: 900 },
+          bypassCSP: true,
+        });
+        const page = await context.newPage();
+        const scripts: Promise<{ bytes: number; wire: number; encoding: string } | null>[] = [];
+        page.on('response', (response) => {
+          if (response.request().resourceType() !== 'script') return;
+          scripts.push(
+            response.body().then(
+              (body) => {
+                const headers = response.headers();
+                const encoding = headers['content-encoding'] ?? 'identity';
+                const wire = Number(headers['content-length'] ?? body.length);
+                return { bytes: body.length, wire, encoding };
+              },
+              () => null,
+            ), // a script still loading when the context closes is not counted
+          );
+        });
+        await page.goto(baseUrl + target.path, { waitUntil: 'load' });
+        // After the load: web-vitals observes with `buffered: true`, so it still sees every
+        // entry since navigation. The tag is inline, hence bypassCSP on this context only.
+        await page.addScriptTag({ path: WEB_VITALS });
+        await page.evaluate(() => {
+          const w = window as unknown as {
+            webVitals: {
+              onLCP: (cb: (m: { value: number }) => void, o: object) => void;
+              onCLS: (cb: (m: { value: number }) => void, o: object) => void;
+            };
+            __vitals: { lcp: number | null; cls: number };
+          };
+          w.__vitals = { lcp: null, cls: 0 };
+          w.webVitals.onLCP((m) => (w.__vitals.lcp = m.value), { reportAllChanges: true });
+          w.webVitals.onCLS((m) => (w.__vitals.cls = m.value), { reportAllChanges: true });
+        });
+        await page.waitForLoadState('networkidle');
+        await page.waitForTimeout(1000);
+        const vitals = await page.evaluate(
+          () => (window as unknown as { __vitals: { lcp: number | null; cls: number } }).__vitals,
+        );
+        const loaded = (await Promise.all(scripts)).filter((s) => s !== null);
+        samples.push({
+          lcpMs: vitals.lcp ?? Number.NaN,
+          cls: vitals.cls,
+          scripts: loaded.length,
+          jsBytes: loaded.reduce((sum, s) => sum + s.bytes, 0),
+          jsBytesOnWire: loaded.reduce((sum, s) => sum + s.wire, 0),
+          jsEncodings: [...new Set(loaded.map((s) => s.encoding))],
+        });
+        await context.close();
+      }
+      results.push({
+        name: target.name,
+        path: target.path,
+        lcpMs: median(samples.map((s) => s.lcpMs)),
+        cls: median(samples.map((s) => s.cls)),
+        scripts: median(samples.map((s) => s.scripts)),
+        jsBytes: median(samples.map((s) => s.jsBytes)),
+        jsBytesOnWire: median(samples.map((s) => s.jsBytesOnWire)),
+        jsEncodings: samples[0].jsEncodings,
+      });
+    }
+  } finally {
+    await browser.close();
+  }
+  return results;
+}
+
+/** The JavaScript files of the client build and their total size (to compare with a page's). */
+export function buildScripts(dist: string): { files: number; bytes: number } {
+  const dir = path.join(dist, 'assets');
+  const files = readdirSync(dir).filter((f) => f.endsWith('.js'));
+  return {
+    files: files.length,
+    bytes: files.reduce((s, f) => s + statSync(path.join(dir, f)).size, 0),
+  };
+}
