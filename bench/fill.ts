@@ -247,7 +247,12 @@ export async function fillCommunity(pool: Pool, size: FillSize): Promise<FillRes
     journalRows.forEach((row, i) => {
       const j = journals[i];
       const n = j.tastings.length;
-      row.push(n, n ? round(j.tastings.reduce((a, b) => a + b, 0) / n, 4) : null, j.lastAge);
+      row.push(
+        n,
+        n ? j.tastings.reduce((a, b) => a + b, 0) / n : null,
+        j.lastAge,
+        n ? j.tastings.reduce((a, b) => a + b * b, 0) : null,
+      );
     });
     await insertRows(
       conn,
@@ -287,6 +292,7 @@ export async function fillCommunity(pool: Pool, size: FillSize): Promise<FillRes
         'tasting_count',
         'mean_overall',
         'last_tasted_age_days',
+        'overall_sum_squares',
       ],
       journalRows,
     );

@@ -60,17 +60,21 @@ export async function deleteTasting(db: Database, id: number): Promise<void> {
 }
 
 /**
- * Recomputes a journal's tasting count, mean overall liking and latest tasted age from its
- * visible tastings, in one statement, so Discover can filter and sort on them.
+ * Recomputes a journal's tasting count, mean overall liking, Σ overall² and latest tasted age
+ * from its visible tastings, in one statement, so Discover can filter and sort on them and
+ * Compare can add up overall liking per journal instead of per tasting.
  */
 export async function refreshJournalTastingStats(db: Database, journalId: number): Promise<void> {
   await db.execute(sql`
     UPDATE journals j
     LEFT JOIN (
-      SELECT journal_id, COUNT(*) AS n, AVG(overall) AS mean_overall, MAX(age_days) AS last_age
+      SELECT journal_id, COUNT(*) AS n, SUM(overall) / CAST(COUNT(*) AS DOUBLE) AS mean_overall,
+             MAX(age_days) AS last_age,
+             SUM(overall * overall) AS ssq
       FROM tastings WHERE journal_id = ${journalId} AND hidden_at IS NULL GROUP BY journal_id
     ) s ON s.journal_id = j.id
-    SET j.tasting_count = COALESCE(s.n, 0), j.mean_overall = s.mean_overall, j.last_tasted_age_days = s.last_age
+    SET j.tasting_count = COALESCE(s.n, 0), j.mean_overall = s.mean_overall, j.last_tasted_age_days = s.last_age,
+        j.overall_sum_squares = s.ssq
     WHERE j.id = ${journalId}`);
 }
 

@@ -13,7 +13,9 @@ import type { AuthMember } from '../middleware/authenticate';
 import {
   comparePoints,
   compareSample,
+  compareOverallSumsFromJournals,
   compareSums,
+  overallSumsApply,
   type CompareFilter,
 } from '../repositories/compare.repository';
 import { findJournalById, findStyleIdsBySlugs } from '../repositories/journals.repository';
@@ -124,7 +126,9 @@ async function computeCompare(
       points.map((p) => p.y),
     );
   } else {
-    const sums = await compareSums(db, q.x, q.y, per, filter);
+    const sums = overallSumsApply(q.x, q.y, per)
+      ? await compareOverallSumsFromJournals(db, q.x, filter)
+      : await compareSums(db, q.x, q.y, per, filter);
     regression = linearRegressionFromSums(sums);
     points = (await compareSample(db, q.x, q.y, per, filter, sums.n, MAX_CHART_POINTS)).map(
       (r) => ({ ...r, x: Number(r.x) }),
