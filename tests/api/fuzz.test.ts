@@ -133,7 +133,7 @@ function enc(value: string): string {
   try {
     return encodeURIComponent(value);
   } catch {
-    return `${encodeURIComponent(value.toWellFormed())}%ED%A0%80`;
+    return `${encodeURIComponent(value.replace(/[\uD800-\uDFFF]/g, ''))}%ED%A0%80`;
   }
 }
 
