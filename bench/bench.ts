@@ -162,8 +162,13 @@ async function captureSql(pool: mysql.Pool, target: string): Promise<Captured> {
 }
 
 /** The floor: the route's statements, in turn, straight through mysql2, at the same concurrency. */
-async function floor(pool: mysql.Pool, sql: string[], seconds: number): Promise<Stats> {
+async function floor(
+  pool: mysql.Pool,
+  sql: string[],
+  seconds: number,
+): Promise<Stats & { perStatementMs: number[] }> {
   const latencies: number[] = [];
+  const spent = sql.map(() => 0);
   let errors = 0;
   const stopAt = Date.now() + seconds * 1000;
   await Promise.all(
@@ -171,7 +176,11 @@ async function floor(pool: mysql.Pool, sql: string[], seconds: number): Promise<
       while (Date.now() < stopAt) {
         const started = performance.now();
         try {
-          for (const statement of sql) await pool.query(statement);
+          for (const [i, statement] of sql.entries()) {
+            const at = performance.now();
+            await pool.query(statement);
+            spent[i] += performance.now() - at;
+          }
         } catch {
           errors += 1;
         }
@@ -179,7 +188,9 @@ async function floor(pool: mysql.Pool, sql: string[], seconds: number): Promise<
       }
     }),
   );
-  return stats(latencies, seconds, errors);
+  // The mean time of each statement under this load: which one the route waits on.
+  const perStatementMs = spent.map((ms) => Number((ms / Math.max(1, latencies.length)).toFixed(2)));
+  return { ...stats(latencies, seconds, errors), perStatementMs };
 }
 
 type RouteSpec = {
@@ -400,6 +411,9 @@ async function main() {
         p.verdict,
       ].join(' | '),
     );
+  }
+  for (const p of output.pages) {
+    say(`${p.name}: LCP element ${p.lcpElement || '?'}; largest shift ${p.shiftTarget || 'none'}`);
   }
   say(`client build: ${build.files} JS files, ${build.bytes} bytes in all`);
   say(`\nWrote bench/results/latest.json (${output.totalSeconds.toFixed(0)} s in all).`);

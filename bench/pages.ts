@@ -11,6 +11,9 @@ export type PageResult = {
   path: string;
   lcpMs: number;
   cls: number;
+  /** What web-vitals' attribution build names: the LCP element and the largest shift's. */
+  lcpElement: string;
+  shiftTarget: string;
   scripts: number;
   jsBytes: number;
   jsBytesOnWire: number;
@@ -20,7 +23,7 @@ export type PageResult = {
 // The package's exports map leaves the IIFE build out, so it is found by its path.
 const WEB_VITALS = path.resolve(
   path.dirname(fileURLToPath(import.meta.url)),
-  '../node_modules/web-vitals/dist/web-vitals.iife.js',
+  '../node_modules/web-vitals/dist/web-vitals.attribution.iife.js',
 );
 
 const median = (values: number[]) =>
@@ -75,24 +78,55 @@ export async function measurePages(
         await page.evaluate(() => {
           const w = window as unknown as {
             webVitals: {
-              onLCP: (cb: (m: { value: number }) => void, o: object) => void;
-              onCLS: (cb: (m: { value: number }) => void, o: object) => void;
+              onLCP: (cb: (m: Metric) => void, o: object) => void;
+              onCLS: (cb: (m: Metric) => void, o: object) => void;
             };
-            __vitals: { lcp: number | null; cls: number };
+            __vitals: Vitals;
           };
-          w.__vitals = { lcp: null, cls: 0 };
-          w.webVitals.onLCP((m) => (w.__vitals.lcp = m.value), { reportAllChanges: true });
-          w.webVitals.onCLS((m) => (w.__vitals.cls = m.value), { reportAllChanges: true });
+          type Metric = { value: number; attribution?: Record<string, unknown> };
+          type Vitals = {
+            lcp: number | null;
+            cls: number;
+            lcpElement: string;
+            shiftTarget: string;
+          };
+          w.__vitals = { lcp: null, cls: 0, lcpElement: '', shiftTarget: '' };
+          w.webVitals.onLCP(
+            (m) => {
+              w.__vitals.lcp = m.value;
+              w.__vitals.lcpElement = String(m.attribution?.target ?? '');
+            },
+            { reportAllChanges: true },
+          );
+          w.webVitals.onCLS(
+            (m) => {
+              w.__vitals.cls = m.value;
+              w.__vitals.shiftTarget = String(m.attribution?.largestShiftTarget ?? '');
+            },
+            { reportAllChanges: true },
+          );
         });
         await page.waitForLoadState('networkidle');
         await page.waitForTimeout(1000);
         const vitals = await page.evaluate(
-          () => (window as unknown as { __vitals: { lcp: number | null; cls: number } }).__vitals,
+          () =>
+            (
+              window as unknown as {
+                __vitals: {
+                  lcp: number | null;
+                  cls: number;
+                  lcpElement: string;
+                  shiftTarget: string;
+                };
+              }
+            ).__vitals,
         );
         const loaded = (await Promise.all(scripts)).filter((s) => s !== null);
         samples.push({
           lcpMs: vitals.lcp ?? Number.NaN,
           cls: vitals.cls,
+          lcpElement: vitals.lcpElement,
+          shiftTarget: vitals.shiftTarget,
           scripts: loaded.length,
           jsBytes: loaded.reduce((sum, s) => sum + s.bytes, 0),
           jsBytesOnWire: loaded.reduce((sum, s) => sum + s.wire, 0),
@@ -105,6 +139,8 @@ export async function measurePages(
         path: target.path,
         lcpMs: median(samples.map((s) => s.lcpMs)),
         cls: median(samples.map((s) => s.cls)),
+        lcpElement: samples[0].lcpElement,
+        shiftTarget: samples[0].shiftTarget,
         scripts: median(samples.map((s) => s.scripts)),
         jsBytes: median(samples.map((s) => s.jsBytes)),
         jsBytesOnWire: median(samples.map((s) => s.jsBytesOnWire)),

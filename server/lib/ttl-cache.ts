@@ -1,9 +1,11 @@
 /**
- * A small in-process cache of computed answers that expire after `ttlMs`, with at most
+ * A small in-process cache of computed answers that are fresh for `ttlMs`, with at most
  * `maxEntries` kept (the least recently used go first) and one computation per key at a
- * time: concurrent misses wait for the same promise, so a burst after expiry runs the query
- * once, not once per request. Each app server has its own, so what it serves may be up to
- * `ttlMs` old; `clear()` drops everything this server holds after one of its own writes.
+ * time: concurrent misses wait for the same promise, so a burst runs the query once, not
+ * once per request. For a while after it goes stale (up to 4 × ttlMs) an answer is still
+ * served at once while one refresh runs behind it, so a slow query never stalls readers
+ * every ttlMs. Each app server has its own; `clear()` drops everything this server holds
+ * after one of its own writes.
  */
 export class TtlCache<V> {
   private readonly entries = new Map<string, { value: V; expires: number }>();
@@ -30,7 +32,16 @@ export class TtlCache<V> {
       return hit.value;
     }
     const waiting = this.pending.get(key);
+    if (hit && hit.expires + 3 * this.ttlMs > now) {
+      // Stale but recent: answer now, refresh once in the background.
+      if (!waiting) this.refresh(key, load).catch(() => {});
+      return hit.value;
+    }
     if (waiting) return waiting;
+    return this.refresh(key, load);
+  }
+
+  private refresh(key: string, load: () => Promise<V>): Promise<V> {
     const generation = this.generation;
     const promise = load()
       .then((value) => {
@@ -43,7 +54,9 @@ export class TtlCache<V> {
         }
         return value;
       })
-      .finally(() => this.pending.delete(key));
+      .finally(() => {
+        if (this.pending.get(key) === promise) this.pending.delete(key);
+      });
     this.pending.set(key, promise);
     return promise;
   }

@@ -13,8 +13,14 @@ describe('TtlCache', () => {
     const [a, b] = await Promise.all([cache.getOrLoad('k', load), cache.getOrLoad('k', load)]);
     expect([a, b, calls]).toEqual([1, 1, 1]);
     expect(await cache.getOrLoad('k', load)).toBe(1);
+    // Stale but recent: the old answer at once, a refresh behind it…
     await new Promise((resolve) => setTimeout(resolve, 60));
+    expect(await cache.getOrLoad('k', load)).toBe(1);
+    await new Promise((resolve) => setTimeout(resolve, 20));
     expect(await cache.getOrLoad('k', load)).toBe(2);
+    // …and long past its time, a reader waits for a fresh one.
+    await new Promise((resolve) => setTimeout(resolve, 260));
+    expect(await cache.getOrLoad('k', load)).toBe(3);
   });
 
   it('forgets everything on clear, even an answer still being computed', async () => {
