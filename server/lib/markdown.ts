@@ -33,27 +33,42 @@ const shortMarkdown = new MarkdownIt({ html: false, linkify: true, typographer: 
   'image',
 );
 
+const COMMENT_TAGS = [
+  'p',
+  'br',
+  'strong',
+  'em',
+  's',
+  'a',
+  'code',
+  'pre',
+  'blockquote',
+  'ul',
+  'ol',
+  'li',
+  'h1',
+  'h2',
+  'h3',
+  'h4',
+  'h5',
+  'h6',
+  'hr',
+  'table',
+  'thead',
+  'tbody',
+  'tr',
+  'th',
+  'td',
+];
+
 /** Renders a comment or a bio to safe HTML: links and basic formatting, never images. */
 export function renderComment(source: string): string {
   if (!source.trim()) return '';
   return purify.sanitize(shortMarkdown.render(source), {
-    USE_PROFILES: { html: true },
-    FORBID_TAGS: [
-      'img',
-      'picture',
-      'source',
-      'svg',
-      'math',
-      'video',
-      'audio',
-      'style',
-      'form',
-      'input',
-      'button',
-      'textarea',
-      'select',
-      'iframe',
-    ],
+    // An allowlist: only what markdown-it writes for text, links, lists, quotes and code, so
+    // no embedded media, forms or frames can appear, whatever the input.
+    ALLOWED_TAGS: COMMENT_TAGS,
+    ALLOWED_ATTR: ['href', 'title', 'rel', 'start'],
     FORBID_ATTR: ['style', 'src', 'srcset'],
   });
 }
