@@ -2,6 +2,7 @@ import type { Defect, FlavourDescriptor } from '../../shared/constants/tasting';
 import type { TastingDto } from '../../shared/types/tasting';
 import { renderNotes } from '../lib/markdown';
 import type { AuthMember } from '../middleware/authenticate';
+import { isStaff } from '../services/journal-access';
 import type { TastingRow } from '../repositories/tastings.repository';
 
 /** Turns a tasting row and its taster into the DTO; notes rendered and sanitised. */
@@ -26,7 +27,7 @@ export function presentTasting(
     defects: row.defects as Defect[],
     notes: row.notes,
     notesHtml: renderNotes(row.notes),
-    canEdit: viewer !== undefined && (viewer.id === row.tasterId || viewer.role !== 'member'),
+    canEdit: viewer !== undefined && (viewer.id === row.tasterId || isStaff(viewer)),
     createdAt: row.createdAt.toISOString(),
   };
 }

@@ -8,6 +8,7 @@ import { safeEqual } from '../lib/tokens';
 import type { AuthMember } from '../middleware/authenticate';
 import { listCaveWheels, listReadyDates, setWheelStatus } from '../repositories/cave.repository';
 import { findJournalForTasting } from '../repositories/tastings.repository';
+import { accessTo } from './journal-access';
 import { findUserById, updateUser } from '../repositories/users.repository';
 
 /** The member's wheels drying and aging, with age, days left and progress to the target. */
@@ -50,7 +51,7 @@ export async function changeWheelStatus(
   status: 'drying' | 'aging' | 'opened' | 'finished' | 'discarded',
 ): Promise<void> {
   const journal = await findJournalForTasting(ctx.database.db, journalId);
-  if (!journal || (journal.userId !== member.id && journal.visibility === 'private')) {
+  if (!journal || accessTo(journal, member) === 'none') {
     throw new NotFoundError('JOURNAL_NOT_FOUND', 'No journal with that id, or it is private.');
   }
   if (journal.userId !== member.id)

@@ -29,13 +29,10 @@ import {
 } from '../repositories/notifications.repository';
 import { findUserById } from '../repositories/users.repository';
 import { recordAudit } from './audit.service';
-import { accessTo } from './journals.service';
+import { accessTo, isStaff } from './journal-access';
 import { holdsFirstComments } from './site-settings.service';
 
 type Viewer = AuthMember | undefined;
-
-export const isStaff = (m?: Pick<AuthMember, 'role'>) =>
-  m?.role === 'moderator' || m?.role === 'admin';
 
 const readerOf = (viewer: Viewer): CommentReader =>
   viewer ? { id: viewer.id, staff: isStaff(viewer) } : undefined;

@@ -55,37 +55,15 @@ import {
 } from '../repositories/journals.repository';
 import { findUserByHandle } from '../repositories/users.repository';
 import { exportCsv, exportJson } from './journals-export';
+import { accessTo, type Viewer } from './journal-access';
 import { deletePhotoFilesForJournal } from './photos.service';
 
 export type ReadingInput = z.infer<typeof readingInputSchema>;
 export type WeighInInput = z.infer<typeof weighInSchema>;
 export type CopyInput = z.infer<typeof copyJournalSchema>;
 
-/** Who is asking: a signed-in member, or undefined for a visitor. */
-type Viewer = Pick<AuthMember, 'id' | 'role'> | undefined;
-
 const notFound = () =>
   new NotFoundError('JOURNAL_NOT_FOUND', 'There is no journal with that id, or it is not shared.');
-
-const isStaff = (viewer: Viewer) => viewer?.role === 'moderator' || viewer?.role === 'admin';
-
-type Access = 'owner' | 'staff' | 'reader' | 'none';
-
-/**
- * What a viewer may do with a journal. The owner sees everything of theirs. Anyone else reads
- * only published journals that are public or unlisted (the link is the key) and not hidden;
- * moderators and admins also read hidden ones. Private journals and drafts do not exist for
- * anyone but their owner.
- */
-export function accessTo(
-  journal: Pick<JournalRow, 'userId' | 'status' | 'visibility' | 'hiddenAt'>,
-  viewer: Viewer,
-): Access {
-  if (viewer && viewer.id === journal.userId) return 'owner';
-  if (journal.status !== 'published' || journal.visibility === 'private') return 'none';
-  if (journal.hiddenAt) return isStaff(viewer) ? 'staff' : 'none';
-  return isStaff(viewer) ? 'staff' : 'reader';
-}
 
 // The journal if the member owns it; 404 when they may not even see it, 403 when they may.
 async function ownedJournal(db: Db, member: AuthMember, id: number): Promise<JournalRow> {

@@ -25,7 +25,7 @@ import {
 } from '../repositories/members.repository';
 import { deleteNoticesFrom, insertNotifications } from '../repositories/notifications.repository';
 import { findUserByHandle, type UserRow } from '../repositories/users.repository';
-import { isStaff } from './comments.service';
+import { isStaff } from './journal-access';
 import { listJournalsFor } from './journals.service';
 
 const PROFILE_JOURNALS = 12;

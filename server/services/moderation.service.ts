@@ -43,7 +43,7 @@ import { findUserById } from '../repositories/users.repository';
 import { recordAudit } from './audit.service';
 import { endAllSessions } from './auth.service';
 import { announceComment } from './comments.service';
-import { accessTo } from './journals.service';
+import { accessTo } from './journal-access';
 
 type Person = {
   id: number;

@@ -31,6 +31,7 @@ import {
   updatePhotoCaption,
   type NewPhotoRow,
 } from '../repositories/photos.repository';
+import { accessTo } from './journal-access';
 
 const NO_PHOTOS_ADDED = 'No photos were added: fix or remove it and upload the others again.';
 const FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, TIFF or GIF';
@@ -70,15 +71,6 @@ type JournalAccess = NonNullable<Awaited<ReturnType<typeof findJournalAccess>>>;
 const journalNotFound = () =>
   new NotFoundError('JOURNAL_NOT_FOUND', 'There is no journal with that id.');
 
-/**
- * Who may see a journal they do not own: mirrors the journals rule (published and not private;
- * a hidden one only for moderators and admins), so that a 403 never reveals a private journal.
- */
-function visibleToOthers(journal: JournalAccess, member: AuthMember): boolean {
-  if (journal.status !== 'published' || journal.visibility === 'private') return false;
-  return !journal.hiddenAt || member.role === 'moderator' || member.role === 'admin';
-}
-
 /** The journal if the member owns it; 404 when they cannot see it, 403 when they can. */
 export async function requirePhotoOwner(
   ctx: AppContext,
@@ -88,7 +80,7 @@ export async function requirePhotoOwner(
   const journal = await findJournalAccess(ctx.database.db, journalId);
   if (!journal) throw journalNotFound();
   if (journal.userId === member.id) return journal;
-  if (visibleToOthers(journal, member)) {
+  if (accessTo(journal, member) !== 'none') {
     throw new ForbiddenError(
       'NOT_JOURNAL_OWNER',
       'Only the maker of this journal can change its photos.',

@@ -10,7 +10,7 @@ import { AppError, ForbiddenError, NotFoundError } from '../lib/errors';
 import { hashToken } from '../lib/tokens';
 import type { AuthMember } from '../middleware/authenticate';
 import { updateJournal } from '../repositories/journals.repository';
-import { accessTo } from './journals.service';
+import { accessTo, isStaff } from './journal-access';
 import {
   deleteTasting,
   findJournalForTasting,
@@ -25,7 +25,6 @@ import {
 } from '../repositories/tastings.repository';
 
 const INVITE_TTL_DAYS = 14;
-const isStaff = (m?: AuthMember) => m?.role === 'moderator' || m?.role === 'admin';
 
 /** Age bands for the mean scores on a journal (days from the make date). */
 export const AGE_BANDS: { label: string; fromDays: number; toDays: number | null }[] = [
