@@ -6,3 +6,5 @@ export declare function startPrivateDatabase(options: {
   database: string;
   remember: boolean;
 }): Promise<{ db: PrivateMariaDb; url: string }>;
+
+export declare function addDatabase(db: PrivateMariaDb, name: string): Promise<string>;
