@@ -297,5 +297,7 @@ export const journalPhotos = mysqlTable(
       foreignColumns: [journals.id],
     }).onDelete('cascade'),
     index('journal_photos_journal_idx').on(t.journalId, t.position),
+    // /media/photos/KEY-W.webp finds its photo (and so its journal's visibility) by key.
+    index('journal_photos_file_key_idx').on(t.fileKey),
   ],
 );

@@ -1,0 +1,2 @@
+ALTER TABLE `audit_entries` MODIFY COLUMN `action` enum('report-dismissed','item-hidden','item-restored','member-suspended','comment-approved','comment-rejected','comment-deleted','journal-deleted','tasting-deleted','setting-changed','role-changed','member-disabled','member-enabled') NOT NULL;--> statement-breakpoint
+CREATE INDEX `journal_photos_file_key_idx` ON `journal_photos` (`file_key`);
