@@ -28,6 +28,7 @@ const EnvSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   JOBS_ENABLED: bool.default(true),
   READ_CACHE_SECONDS: z.coerce.number().min(0).max(300).optional(),
+  READ_CACHE_SYNC_MS: z.coerce.number().int().min(100).max(60_000).default(1000),
   STORAGE: z.enum(['local', 's3']).default('local'),
   S3_ENDPOINT: z.url().optional(),
   S3_BUCKET: z
@@ -65,6 +66,8 @@ export type AppConfig = Readonly<{
   storage: StorageConfig;
   /** How long public Discover pages and Compare answers are reused; 0 turns it off. */
   readCacheSeconds: number;
+  /** How often each app server checks whether another one served a write (read cache on). */
+  readCacheSyncMs: number;
 }>;
 
 /** Where photos go: a local folder, or an S3-compatible object store. */
@@ -138,6 +141,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     storage,
     // Off in tests, which read right after they write; a few seconds elsewhere.
     readCacheSeconds: e.READ_CACHE_SECONDS ?? (e.NODE_ENV === 'test' ? 0 : 5),
+    readCacheSyncMs: e.READ_CACHE_SYNC_MS,
   });
 }
 

@@ -4,6 +4,7 @@ import type { AppConfig } from './config';
 import { createDatabase, type DatabaseHandle } from './db/client';
 import { createLimiters, type Limiters } from './lib/rate-limit';
 import { createLogger } from './lib/logger';
+import { startReadCacheSync, type ReadCacheSync } from './lib/read-cache-sync';
 import { TtlCache } from './lib/ttl-cache';
 import { S3Storage } from './lib/s3-storage';
 import { LocalStorage, type PhotoStorage } from './lib/storage';
@@ -23,9 +24,12 @@ export type AppContext = {
   storage: PhotoStorage;
   /**
    * Answers that do not depend on who asks (public Discover pages, Compare for signed-out
-   * visitors), reused for READ_CACHE_SECONDS; cleared on this server's own journal writes.
+   * visitors), reused for READ_CACHE_SECONDS; cleared after any write served by any app
+   * server (see readCacheSync).
    */
   readCache: TtlCache<unknown>;
+  /** Tells the other app servers about this one's writes; null when the cache is off. */
+  readCacheSync: ReadCacheSync | null;
   /** Registers something to close (timers, stores) before the pool closes. */
   onClose: (closer: () => Promise<void> | void) => void;
   /** Closes everything the context opened, in order. */
@@ -56,6 +60,11 @@ export async function createContext(
   const limiters = createLimiters(database.pool, databaseName(config.databaseUrl));
   const closers: Array<() => Promise<void> | void> = [];
   const storage = createStorage(config);
+  const readCache = new TtlCache<unknown>(config.readCacheSeconds * 1000, 200);
+  const readCacheSync = readCache.enabled
+    ? startReadCacheSync(database.pool, readCache, logger, config.readCacheSyncMs)
+    : null;
+  if (readCacheSync) closers.push(readCacheSync.stop);
   return {
     config,
     logger,
@@ -64,7 +73,8 @@ export async function createContext(
     mailbox,
     limiters,
     storage,
-    readCache: new TtlCache<unknown>(config.readCacheSeconds * 1000, 200),
+    readCache,
+    readCacheSync,
     onClose: (closer) => closers.push(closer),
     close: async () => {
       for (const closer of closers.reverse()) await closer();

@@ -1,11 +1,12 @@
 import { eq, inArray } from 'drizzle-orm';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { journalReminders } from '../../server/db/schema/tastings';
 import { LIMITS } from '../../server/lib/rate-limit';
 import { runReminderPass } from '../../server/services/reminders.service';
-import { createTestApp, type TestApp } from '../support/app';
-import { createMember } from '../support/factories';
+import { createTestApp, visitor, type TestApp } from '../support/app';
+import { createMember, signedIn } from '../support/factories';
 import { HttpVisitor, listen, type Listening } from '../support/http';
+import { publicJournalDocument } from '../support/journal-factory';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
 import { startThrowawayDatabase, type ThrowawayDatabase } from '../support/private-db';
 
@@ -131,5 +132,51 @@ describe('two app servers on one database', () => {
       .from(journalReminders)
       .where(eq(journalReminders.journalId, ids[0]));
     expect(perJournal).toHaveLength(1);
+  });
+});
+
+describe('two app servers with the read cache on', () => {
+  let c: TestApp;
+  let d: TestApp;
+  beforeAll(async () => {
+    const env = { DATABASE_URL: database.url, READ_CACHE_SECONDS: '60', READ_CACHE_SYNC_MS: '200' };
+    c = await createTestApp(env);
+    d = await createTestApp(env);
+  });
+  afterAll(async () => {
+    await c?.close();
+    await d?.close();
+  });
+
+  it('drop their cached answers soon after a write served by the other', async () => {
+    const maker = await signedIn(c.app, c.ctx);
+    const word = `epochtest${maker.member.id}x`;
+    const url = `/api/journals?q=${word}`;
+    const created = await maker.post(
+      '/api/journals',
+      publicJournalDocument({ title: `The ${word} wheel` }),
+    );
+    expect(created.status).toBe(201);
+    // D has seen C's write; from here D keeps what it reads for a minute.
+    await d.ctx.readCacheSync!.check();
+    expect((await visitor(d.app).get(url).expect(200)).body.total).toBe(1);
+
+    // A row written behind both servers' backs is not seen by D: its answer is cached.
+    await insertJournalRow(d.ctx, maker.member.id, { title: `A quiet ${word} wheel` });
+    await d.ctx.readCacheSync!.check();
+    expect((await visitor(d.app).get(url).expect(200)).body.total).toBe(1);
+
+    // The maker deletes the first journal through C: D forgets its cached answer by itself
+    // within a few of its checks (every 200 ms here), without a write of its own.
+    expect((await maker.delete(`/api/journals/${created.body.id}`)).status).toBe(204);
+    await vi.waitFor(
+      async () => {
+        const after = (await visitor(d.app).get(url).expect(200)).body;
+        expect(after.items.map((i: { title: string }) => i.title)).toEqual([
+          `A quiet ${word} wheel`,
+        ]);
+      },
+      { timeout: 10_000, interval: 100 },
+    );
   });
 });
