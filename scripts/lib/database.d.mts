@@ -8,3 +8,10 @@ export declare function startPrivateDatabase(options: {
 }): Promise<{ db: PrivateMariaDb; url: string }>;
 
 export declare function addDatabase(db: PrivateMariaDb, name: string): Promise<string>;
+
+export declare const SCRATCH_DATABASE_NAMES: readonly [
+  'rindwise_multi',
+  'rindwise_explain',
+  'rindwise_backup_src',
+  'rindwise_backup_dst',
+];

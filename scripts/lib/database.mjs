@@ -44,6 +44,17 @@ export async function startPrivateDatabase({ dir, database, remember }) {
   return { db, url };
 }
 
+/**
+ * Empty databases `npm test` adds to its MariaDB for the test files that want one of their
+ * own (ownDatabase() in tests/support/private-db.ts), instead of an instance each.
+ */
+export const SCRATCH_DATABASE_NAMES = [
+  'rindwise_multi',
+  'rindwise_explain',
+  'rindwise_backup_src',
+  'rindwise_backup_dst',
+];
+
 /** Creates one more database on a running private instance for the same user; resolves with its URL. */
 export async function addDatabase(db, name) {
   const { user, password, port } = db.credentials;

@@ -13,20 +13,20 @@ import type { PhotoDto } from '../../shared/types/journal';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { signedIn } from '../support/factories';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
-import { startThrowawayDatabase, type ThrowawayDatabase } from '../support/private-db';
+import { ownDatabase, type OwnDatabase } from '../support/private-db';
 
-// The round trip of `npm run backup` and `npm run restore`: a source instance with rows and
-// photos, an archive, a second, empty instance restored from it; every table's row count and
+// The round trip of `npm run backup` and `npm run restore`: a source database with rows and
+// photos, an archive, a second, empty database restored from it; every table's row count and
 // every photo file's bytes must match, and the restored site serves the photo.
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
-let source: ThrowawayDatabase;
-let target: ThrowawayDatabase | null = null;
+let source: OwnDatabase;
+let target: OwnDatabase | null = null;
 let work: string;
 let t: TestApp;
 
 beforeAll(async () => {
   work = await mkdtemp(path.join(os.tmpdir(), 'rindwise-backup-test-'));
-  source = await startThrowawayDatabase('rindwise_backup_src');
+  source = await ownDatabase('rindwise_backup_src');
   t = await createTestApp({
     DATABASE_URL: source.url,
     UPLOADS_DIR: path.join(work, 'uploads-src'),
@@ -89,7 +89,7 @@ async function fileHashes(dir: string): Promise<Record<string, string>> {
 }
 
 describe('npm run backup and npm run restore', () => {
-  it('round-trip every row and every photo into an empty instance', async () => {
+  it('round-trip every row and every photo into an empty database', async () => {
     // Some of everything: members, journals, readings, tastings, photos.
     const maker = await signedIn(t.app, t.ctx);
     const ids: number[] = [];
@@ -160,7 +160,7 @@ describe('npm run backup and npm run restore', () => {
     expect(archives[0]).toMatch(/^rindwise-backup-\d{4}-\d\d-\d\dT\d\d-\d\d-\d\dZ\.tar\.gz$/);
     const archive = path.join(work, 'archives', archives[0]);
 
-    target = await startThrowawayDatabase('rindwise_backup_dst', { migrate: false });
+    target = await ownDatabase('rindwise_backup_dst', { migrate: false });
     expect(await rowCounts(target.url)).toEqual({});
     const restore = await runScript('restore.mjs', [archive], {
       DATABASE_URL: target.url,

@@ -3,18 +3,18 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { fillCommunity } from '../../bench/fill';
 import * as schema from '../../server/db/schema';
 import { createTestApp, visitor, type TestApp } from '../support/app';
-import { startThrowawayDatabase, type ThrowawayDatabase } from '../support/private-db';
+import { ownDatabase, type OwnDatabase } from '../support/private-db';
 
 // Every Discover filter and sort, as the API sends it, must be answered through an index on
 // journals (never a full scan). Over a small community from the benchmark's generator (3,000
 // journals) in a database of this file's own, so the optimizer sees a realistic spread.
-let database: ThrowawayDatabase;
+let database: OwnDatabase;
 let t: TestApp;
 const captured: { sql: string; params: unknown[] }[] = [];
 let maker = '';
 
 beforeAll(async () => {
-  database = await startThrowawayDatabase('rindwise_explain');
+  database = await ownDatabase('rindwise_explain');
   t = await createTestApp({ DATABASE_URL: database.url });
   const fill = await fillCommunity(t.ctx.database.pool, {
     members: 300,

@@ -8,19 +8,19 @@ import { createMember, signedIn } from '../support/factories';
 import { HttpVisitor, listen, type Listening } from '../support/http';
 import { publicJournalDocument } from '../support/journal-factory';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
-import { startThrowawayDatabase, type ThrowawayDatabase } from '../support/private-db';
+import { ownDatabase, type OwnDatabase } from '../support/private-db';
 
 // Two app servers (two contexts: two pools, two session stores, two limiters, two mailers)
-// on two ports over real HTTP, against one MariaDB of this file's own, so the reminder
+// on two ports over real HTTP, against one database of this file's own, so the reminder
 // passes of other test files cannot take our rows. Both mailers send to A's SMTP fake.
-let database: ThrowawayDatabase;
+let database: OwnDatabase;
 let a: TestApp;
 let b: TestApp;
 let serverA: Listening;
 let serverB: Listening;
 
 beforeAll(async () => {
-  database = await startThrowawayDatabase('rindwise_multi');
+  database = await ownDatabase('rindwise_multi');
   a = await createTestApp({ DATABASE_URL: database.url });
   b = await createTestApp({
     DATABASE_URL: database.url,

@@ -1,7 +1,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { startPrivateDatabase } from '../../scripts/lib/database.mjs';
+import { SCRATCH_DATABASE_NAMES, startPrivateDatabase } from '../../scripts/lib/database.mjs';
 import type { PrivateMariaDb } from '../../scripts/lib/mariadb.mjs';
 import { createDatabase } from '../../server/db/client';
 import { migrateDatabase } from '../../server/db/migrate';
@@ -47,4 +47,31 @@ export async function startThrowawayDatabase(
       rmSync(dir, { recursive: true, force: true });
     },
   };
+}
+
+export type OwnDatabase = { url: string; stop: () => Promise<void> };
+
+/**
+ * A database of this test file's own, for tests that must not share rows with the other
+ * files but never kill the server: an empty database that `npm test` made in its MariaDB for
+ * this name (SCRATCH_DATABASE_URLS; seconds instead of a new instance's half a minute), or a
+ * private instance when the tests run some other way. Migrated unless told otherwise.
+ */
+export async function ownDatabase(
+  name: (typeof SCRATCH_DATABASE_NAMES)[number],
+  { migrate = true }: { migrate?: boolean } = {},
+): Promise<OwnDatabase> {
+  const urls = JSON.parse(process.env.SCRATCH_DATABASE_URLS ?? '{}') as Record<string, string>;
+  const url = urls[name];
+  if (!url) return startThrowawayDatabase(name, { migrate });
+  if (migrate) {
+    const handle = createDatabase(url, 2);
+    try {
+      await migrateDatabase(handle.db);
+    } finally {
+      await handle.close();
+    }
+  }
+  // The run's MariaDB, with this database in it, goes away when the run ends.
+  return { url, stop: async () => {} };
 }
