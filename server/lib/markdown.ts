@@ -1,5 +1,6 @@
 import createDOMPurify, { type WindowLike } from 'dompurify';
 import { JSDOM } from 'jsdom';
+import { LRUCache } from 'lru-cache';
 import MarkdownIt from 'markdown-it';
 
 // One markdown-it and one DOMPurify on one jsdom window for the life of the process: building
@@ -16,8 +17,30 @@ purify.addHook('afterSanitizeAttributes', (node) => {
   }
 });
 
+/**
+ * Remembers the HTML of recently rendered texts. Rendering is a pure function of the source
+ * (the same Markdown always gives the same safe HTML), so a remembered answer is never stale,
+ * on any app server; sanitising on jsdom costs milliseconds per journal, which every uncached
+ * read of a journal page or a comment thread would otherwise pay again. Bounded by the
+ * characters held (sources and results): about 8 MB of strings for each renderer at most.
+ */
+function remembered(render: (source: string) => string): (source: string) => string {
+  const cache = new LRUCache<string, string>({
+    maxSize: 4_000_000,
+    sizeCalculation: (html, source) => html.length + source.length || 1,
+  });
+  return (source) => {
+    const hit = cache.get(source);
+    if (hit !== undefined) return hit;
+    const html = render(source);
+    // A text larger than the whole budget is rendered each time rather than held.
+    if (html.length + source.length < 4_000_000) cache.set(source, html);
+    return html;
+  };
+}
+
 /** Renders a member's Markdown notes to HTML that is safe to insert into a page. */
-export function renderNotes(source: string): string {
+export const renderNotes = remembered(function renderNotes(source: string): string {
   if (!source.trim()) return '';
   const html = markdown.render(source);
   return purify.sanitize(html, {
@@ -25,7 +48,7 @@ export function renderNotes(source: string): string {
     FORBID_TAGS: ['style', 'form', 'input', 'button', 'textarea', 'select', 'iframe'],
     FORBID_ATTR: ['style'],
   });
-}
+});
 
 // Comments and bios: the same fences, and no images at all (no tracking pixels, no hot-linked
 // pictures in someone else's journal). markdown-it's image rule is off, so ![x](y) stays text.
@@ -62,7 +85,7 @@ const COMMENT_TAGS = [
 ];
 
 /** Renders a comment or a bio to safe HTML: links and basic formatting, never images. */
-export function renderComment(source: string): string {
+export const renderComment = remembered(function renderComment(source: string): string {
   if (!source.trim()) return '';
   return purify.sanitize(shortMarkdown.render(source), {
     // An allowlist: only what markdown-it writes for text, links, lists, quotes and code, so
@@ -71,4 +94,4 @@ export function renderComment(source: string): string {
     ALLOWED_ATTR: ['href', 'title', 'rel', 'start'],
     FORBID_ATTR: ['style', 'src', 'srcset'],
   });
-}
+});
