@@ -1,10 +1,14 @@
-/** An error the API reports to its caller: an HTTP status, a stable code and a plain message. */
+/**
+ * An error the API reports to its caller: an HTTP status, a stable code and a plain message;
+ * `extra` adds named values to the error body (e.g. the current state on a 409).
+ */
 export class AppError extends Error {
   constructor(
     public readonly status: number,
     public readonly code: string,
     message: string,
     public readonly fields?: Record<string, string>,
+    public readonly extra?: Record<string, unknown>,
   ) {
     super(message);
     this.name = 'AppError';

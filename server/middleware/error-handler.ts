@@ -66,6 +66,7 @@ export function errorHandler(showDetails: boolean): ErrorRequestHandler {
       }
       res.status(error.status).json({
         error: {
+          ...error.extra,
           code: error.code,
           message: error.message,
           ...(error.fields ? { fields: error.fields } : {}),

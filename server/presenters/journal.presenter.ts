@@ -160,7 +160,7 @@ export function figuresInputOf(
 export function presentJournal(
   a: JournalAggregate,
   opts: { canEdit: boolean; now?: Date },
-): JournalDto {
+): Omit<JournalDto, 'version' | 'hidden'> {
   const now = opts.now ?? new Date();
   const j = a.journal;
   const photos = a.photos.map(presentPhoto);

@@ -339,6 +339,7 @@ const summaryCols = {
   tastingCount: journals.tastingCount,
   meanOverall: journals.meanOverall,
   updatedAt: journals.updatedAt,
+  hiddenAt: journals.hiddenAt,
 };
 
 export type JournalSummaryRow = {

@@ -4,6 +4,7 @@ import {
   commentInputSchema,
   commentListQuerySchema,
   commentUpdateSchema,
+  staffDeleteSchema,
 } from '../../shared/schemas/community';
 import type { AppContext } from '../context';
 import { currentMember, requireMember, requireVerified } from '../middleware/authenticate';
@@ -78,10 +79,21 @@ export function commentsRouter(ctx: AppContext): Router {
     },
   );
 
-  router.delete('/:id', requireMember, validate('params', commentParams), async (req, res) => {
-    await comments.deleteComment(ctx, currentMember(req), valid(res, 'params', commentParams).id);
-    res.status(204).end();
-  });
+  router.delete(
+    '/:id',
+    requireMember,
+    validate('params', commentParams),
+    validate('body', staffDeleteSchema),
+    async (req, res) => {
+      await comments.deleteComment(
+        ctx,
+        currentMember(req),
+        valid(res, 'params', commentParams).id,
+        valid(res, 'body', staffDeleteSchema).reason,
+      );
+      res.status(204).end();
+    },
+  );
 
   return router;
 }

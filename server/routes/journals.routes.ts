@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { staffDeleteSchema } from '../../shared/schemas/community';
 import {
   copyJournalSchema,
   journalExportQuerySchema,
@@ -10,12 +11,31 @@ import {
   weighInSchema,
 } from '../../shared/schemas/journal';
 import type { AppContext } from '../context';
+import { AppError } from '../lib/errors';
 import { sendSharedJson } from '../lib/cached-json';
 import { currentMember, requireMember } from '../middleware/authenticate';
 import { validate, valid } from '../middleware/validate';
 import * as journals from '../services/journals.service';
 
 const idParams = z.object({ id: z.coerce.number().int().positive('Use a journal id.') });
+
+/**
+ * The document version a PUT was edited from, from If-Match (one entity tag, quoted or not;
+ * a weak W/ prefix is read the same, and * overwrites whatever is stored). Missing: 428.
+ */
+function ifMatchOf(header: string | undefined): string {
+  const value = header?.trim() ?? '';
+  if (value === '*') return '*';
+  const tag = /^(?:W\/)?"?([A-Za-z0-9_.-]{1,64})"?$/.exec(value);
+  if (!tag) {
+    throw new AppError(
+      428,
+      'VERSION_REQUIRED',
+      'Send the version of the journal you edited in an If-Match header (the "version" of GET /api/journals/:id), so a save never overwrites changes made elsewhere.',
+    );
+  }
+  return tag[1];
+}
 
 /**
  * /api/journals: Discover and My journals, one journal with its derived figures, the whole
@@ -84,15 +104,28 @@ export function journalsRouter(ctx: AppContext): Router {
         currentMember(req),
         valid(res, 'params', idParams).id,
         valid(res, 'body', journalInputSchema),
+        ifMatchOf(req.get('if-match')),
       );
+      res.setHeader('Cache-Control', 'no-store');
       res.json(journal);
     },
   );
 
-  router.delete('/:id', requireMember, validate('params', idParams), async (req, res) => {
-    await journals.deleteJournalAs(ctx, currentMember(req), valid(res, 'params', idParams).id);
-    res.status(204).end();
-  });
+  router.delete(
+    '/:id',
+    requireMember,
+    validate('params', idParams),
+    validate('body', staffDeleteSchema),
+    async (req, res) => {
+      await journals.deleteJournalAs(
+        ctx,
+        currentMember(req),
+        valid(res, 'params', idParams).id,
+        valid(res, 'body', staffDeleteSchema).reason,
+      );
+      res.status(204).end();
+    },
+  );
 
   router.post(
     '/:id/copy',

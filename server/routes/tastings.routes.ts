@@ -1,5 +1,6 @@
 import { Router } from 'express';
 import { z } from 'zod';
+import { staffDeleteSchema } from '../../shared/schemas/community';
 import { tastingInputSchema, tastingUpdateSchema } from '../../shared/schemas/tasting';
 import type { AppContext } from '../context';
 import { currentMember, requireMember, requireVerified } from '../middleware/authenticate';
@@ -21,7 +22,13 @@ export function journalTastingsRouter(ctx: AppContext): Router {
       req.member,
       valid(res, 'params', journalParams).id,
     );
-    res.json({ tastings: rows.map((r) => presentTasting(r.tasting, r.taster, req.member)), bands });
+    res.json({
+      tastings: rows.map((r) => ({
+        ...presentTasting(r.tasting, r.taster, req.member),
+        hidden: r.hidden,
+      })),
+      bands,
+    });
   });
 
   router.post(
@@ -72,10 +79,21 @@ export function tastingsRouter(ctx: AppContext): Router {
     },
   );
 
-  router.delete('/:id', requireMember, validate('params', tastingParams), async (req, res) => {
-    await tastings.removeTasting(ctx, currentMember(req), valid(res, 'params', tastingParams).id);
-    res.status(204).end();
-  });
+  router.delete(
+    '/:id',
+    requireMember,
+    validate('params', tastingParams),
+    validate('body', staffDeleteSchema),
+    async (req, res) => {
+      await tastings.removeTasting(
+        ctx,
+        currentMember(req),
+        valid(res, 'params', tastingParams).id,
+        valid(res, 'body', staffDeleteSchema).reason,
+      );
+      res.status(204).end();
+    },
+  );
 
   return router;
 }

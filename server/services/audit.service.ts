@@ -1,13 +1,18 @@
 import type { z } from 'zod';
-import type { AuditAction, AuditTarget } from '../../shared/constants/community';
+import type { AuditAction, AuditTarget, ReportTarget } from '../../shared/constants/community';
 import type { auditQuerySchema } from '../../shared/schemas/community';
 import type { AuditEntryDto } from '../../shared/types/community';
 import type { Page } from '../../shared/types/admin';
+import type { HiddenMarkDto } from '../../shared/types/journal';
 import type { AppContext } from '../context';
 import type { AuthMember } from '../middleware/authenticate';
 import { presentAuditEntry } from '../presenters/community.presenter';
 import type { Db } from '../repositories/journals.repository';
-import { insertAuditEntry, listAuditEntries } from '../repositories/moderation.repository';
+import {
+  insertAuditEntry,
+  listAuditEntries,
+  listAuditFor,
+} from '../repositories/moderation.repository';
 
 export type AuditInput = {
   action: AuditAction;
@@ -56,4 +61,34 @@ export async function listAudit(
     actorHandle: query.actor?.replace(/^@/, '') || undefined,
   });
   return { items: rows.map(presentAuditEntry), total, page: query.page, pageSize: query.pageSize };
+}
+
+// --- what an author sees of a hide -------------------------------------------------------
+
+type HiddenItem = { type: ReportTarget; id: number; hiddenAt: Date };
+
+/**
+ * The "hidden by a moderator" marks of some hidden items, for their author and staff: when,
+ * and the note of the moderator's latest hide (a report's hide or a held comment's
+ * rejection) from the audit log; '' when none was written. Keyed "type:id".
+ */
+export async function hiddenMarks(
+  db: Db,
+  items: readonly HiddenItem[],
+): Promise<Map<string, HiddenMarkDto>> {
+  const marks = new Map<string, HiddenMarkDto>();
+  if (!items.length) return marks;
+  const entries = await listAuditFor(db, items);
+  for (const item of items) {
+    const key = `${item.type}:${item.id}`;
+    // Newest first: the first hide of this item is the one that stands.
+    const entry = entries.find(
+      (e) =>
+        e.targetType === item.type &&
+        e.targetId === item.id &&
+        (e.action === 'item-hidden' || e.action === 'comment-rejected'),
+    );
+    marks.set(key, { hiddenAt: item.hiddenAt.toISOString(), reason: entry?.note ?? '' });
+  }
+  return marks;
 }

@@ -28,7 +28,7 @@ import {
   type NewNotificationRow,
 } from '../repositories/notifications.repository';
 import { findUserById } from '../repositories/users.repository';
-import { recordAudit } from './audit.service';
+import { hiddenMarks, recordAudit } from './audit.service';
 import { accessTo, isStaff } from './journal-access';
 import { holdsFirstComments } from './site-settings.service';
 
@@ -89,9 +89,30 @@ export async function listComments(
     byParent.set(r.comment.parentId!, list);
   }
   const reason = closedReason(journal, viewer);
+  // A hidden comment reaches only its author and staff: tell them why it is hidden.
+  const hiddenRows = [...threads, ...replies].filter(
+    (r) =>
+      r.comment.hiddenAt &&
+      !r.comment.deletedAt &&
+      reader &&
+      (reader.staff || reader.id === r.comment.authorId),
+  );
+  const marks = await hiddenMarks(
+    db,
+    hiddenRows.map((r) => ({
+      type: 'comment' as const,
+      id: r.comment.id,
+      hiddenAt: r.comment.hiddenAt!,
+    })),
+  );
+  const marked = (c: CommentDto): CommentDto => ({
+    ...c,
+    hidden: c.state === 'hidden' ? (marks.get(`comment:${c.id}`) ?? null) : null,
+    replies: c.replies.map(marked),
+  });
   return {
     items: threads.map((t) =>
-      presentComment(t.comment, t.author, reader, byParent.get(t.comment.id) ?? [], now),
+      marked(presentComment(t.comment, t.author, reader, byParent.get(t.comment.id) ?? [], now)),
     ),
     total,
     threads: threadCount,
@@ -236,7 +257,7 @@ export async function editComment(
  * Deletes a comment: its author at any time, or a moderator or admin (audited). The row stays,
  * marked deleted, so replies keep their place and a report still shows what was said.
  */
-export async function deleteComment(ctx: AppContext, member: AuthMember, id: number) {
+export async function deleteComment(ctx: AppContext, member: AuthMember, id: number, reason = '') {
   const { comment, author } = await visibleComment(ctx, member, id);
   const own = comment.authorId === member.id;
   if (!own && !isStaff(member))
@@ -253,6 +274,7 @@ export async function deleteComment(ctx: AppContext, member: AuthMember, id: num
         targetId: id,
         targetUser: author,
         summary: `Comment “${plainExcerpt(comment.body, 80)}”`,
+        note: reason.trim(),
       });
     }
   });

@@ -56,7 +56,10 @@ async function loadOwnAggregates(ctx: AppContext, member: AuthMember) {
 const absolute = (ctx: AppContext, url: string) =>
   /^https?:/.test(url) ? url : `${ctx.config.publicUrl.replace(/\/$/, '')}${url}`;
 
-function withAbsolutePhotoUrls(ctx: AppContext, dto: JournalDto): JournalDto {
+function withAbsolutePhotoUrls<T extends Omit<JournalDto, 'version' | 'hidden'>>(
+  ctx: AppContext,
+  dto: T,
+): T {
   const fix = (p: JournalDto['photos'][number]) => ({
     ...p,
     sources: p.sources.map((s) => ({ ...s, url: absolute(ctx, s.url) })),

@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { z } from 'zod';
 import type {
   copyJournalSchema,
@@ -11,9 +12,15 @@ import { isoDate, calendarDateOf } from '../../shared/trade/time';
 import { journalMetrics, type JournalMetrics } from '../../shared/trade/journal-figures';
 import { scaleAmounts } from '../../shared/trade/scaling';
 import { amountToSi, toLitres } from '../../shared/trade/units';
-import type { JournalDto, JournalSummaryDto, ReadingDto } from '../../shared/types/journal';
+import type {
+  HiddenMarkDto,
+  JournalDto,
+  JournalSummaryDto,
+  ReadingDto,
+} from '../../shared/types/journal';
 import type { AppContext } from '../context';
 import {
+  AppError,
   ConflictError,
   ForbiddenError,
   NotFoundError,
@@ -54,8 +61,9 @@ import {
   type NewJournalRow,
 } from '../repositories/journals.repository';
 import { findUserByHandle } from '../repositories/users.repository';
+import { hiddenMarks, recordAudit } from './audit.service';
 import { exportCsv, exportJson } from './journals-export';
-import { accessTo, type Viewer } from './journal-access';
+import { accessTo, isStaff, type Viewer } from './journal-access';
 import { deletePhotoFilesForJournal } from './photos.service';
 
 export type ReadingInput = z.infer<typeof readingInputSchema>;
@@ -181,6 +189,79 @@ export function metricsForDocument(
   );
 }
 
+// --- the document's version ---------------------------------------------------------------
+
+// Every journal column a PUT writes from the document (documentColumns above).
+const DOCUMENT_COLUMNS = [
+  'styleId',
+  'title',
+  'makeDate',
+  'status',
+  'visibility',
+  'wheelStatus',
+  'milkVolumeL',
+  'milkVolumeUnit',
+  'species',
+  'heatTreatment',
+  'homogenised',
+  'fatPercent',
+  'proteinPercent',
+  'mouldShape',
+  'mouldDiameterMm',
+  'mouldLengthMm',
+  'mouldWidthMm',
+  'mouldUnit',
+  'rindTreatment',
+  'dryingDays',
+  'agingTargetDays',
+  'agingTempC',
+  'agingHumidityPercent',
+  'agingCheckDate',
+  'greenWeightKg',
+  'notes',
+] as const satisfies readonly (keyof JournalRow)[];
+
+type DocumentParts = Pick<JournalAggregate, 'ingredients' | 'steps' | 'pressStages' | 'weighIns'>;
+
+/**
+ * The version of a journal's document: a digest of every column and child row a PUT
+ * replaces, read as stored. Any write to them (the editor, the vat, a weigh-in from the
+ * cave) changes it; readings, photos, tastings and moderation do not, since a PUT leaves
+ * them alone. Clients send it back in If-Match so a stale document never overwrites a newer one.
+ */
+export function documentVersion(journal: JournalRow, parts: DocumentParts): string {
+  const canonical = JSON.stringify([
+    DOCUMENT_COLUMNS.map((key) => journal[key]),
+    parts.ingredients.map((i) => [i.kind, i.name, i.amount, i.unit, i.mlPerDrop, i.note]),
+    parts.steps.map((s) => [
+      s.kind,
+      s.targetTempC,
+      s.actualTempC,
+      s.targetMinutes,
+      s.actualMinutes,
+      s.startedAt?.toISOString() ?? null,
+      s.cutSizeMm,
+      s.note,
+    ]),
+    parts.pressStages.map((p) => [p.loadN, p.loadUnit, p.minutes]),
+    parts.weighIns.map((w) => [w.date, w.massKg, w.note]),
+  ]);
+  return `d1-${createHash('sha256').update(canonical).digest('base64url').slice(0, 22)}`;
+}
+
+/** A PUT whose If-Match names an older version: 409 with the journal as it is now. */
+export class JournalChangedError extends AppError {
+  constructor(current: JournalDto) {
+    super(
+      409,
+      'JOURNAL_CHANGED',
+      'This journal was changed somewhere else (another tab or device) after you opened it, so your save was not applied and nothing was overwritten. Your changes are kept: compare them with the saved version, then save again.',
+      undefined,
+      { current },
+    );
+  }
+}
+
 async function styleIdFor(db: Db, slug: string): Promise<number> {
   const style = await findStyleBySlug(db, slug);
   if (!style) throw new ValidationError({ styleSlug: 'That style is not in our list.' });
@@ -249,11 +330,33 @@ async function loadAggregate(db: Db, id: number, viewer: Viewer) {
   return { aggregate, access };
 }
 
-/** One journal as the viewer may see it, with derived figures; 404 when it is not theirs to see. */
+/**
+ * One journal as the viewer may see it, with derived figures and its document version;
+ * its maker and staff also get the moderator's hide mark. 404 when it is not theirs to see.
+ */
 export async function getJournal(ctx: AppContext, viewer: Viewer, id: number): Promise<JournalDto> {
-  const found = await loadAggregate(ctx.database.db, id, viewer);
+  const db = ctx.database.db;
+  const found = await loadAggregate(db, id, viewer);
   if (!found) throw notFound();
-  return presentJournal(found.aggregate, { canEdit: found.access === 'owner' });
+  const { aggregate, access } = found;
+  const dto = presentJournal(aggregate, { canEdit: access === 'owner' });
+  const seesMarks = access === 'owner' || access === 'staff';
+  const hiddenPhotos = seesMarks ? aggregate.photos.filter((p) => p.hiddenAt !== null) : [];
+  const marks =
+    seesMarks && (aggregate.journal.hiddenAt || hiddenPhotos.length)
+      ? await hiddenMarks(db, [
+          ...(aggregate.journal.hiddenAt
+            ? [{ type: 'journal' as const, id, hiddenAt: aggregate.journal.hiddenAt }]
+            : []),
+          ...hiddenPhotos.map((p) => ({ type: 'photo' as const, id: p.id, hiddenAt: p.hiddenAt! })),
+        ])
+      : new Map<string, HiddenMarkDto>();
+  return {
+    ...dto,
+    photos: dto.photos.map((p) => ({ ...p, hidden: marks.get(`photo:${p.id}`) ?? null })),
+    version: documentVersion(aggregate.journal, aggregate),
+    hidden: marks.get(`journal:${id}`) ?? null,
+  };
 }
 
 const emptyPage = (query: JournalListQuery) => ({
@@ -304,9 +407,19 @@ export async function listJournalsFor(ctx: AppContext, viewer: Viewer, query: Jo
     db,
     rows.map((r) => r.journal.id),
   );
+  // Only My journals can list a hidden one (Discover lists nothing hidden): its maker sees why.
+  const hidden = rows.flatMap((r) =>
+    r.journal.hiddenAt
+      ? [{ type: 'journal' as const, id: r.journal.id, hiddenAt: r.journal.hiddenAt }]
+      : [],
+  );
+  const marks = hidden.length ? await hiddenMarks(db, hidden) : new Map<string, HiddenMarkDto>();
   const now = new Date();
   return {
-    items: rows.map((r) => presentJournalSummary(r, covers.get(r.journal.id) ?? null, now)),
+    items: rows.map((r) => ({
+      ...presentJournalSummary(r, covers.get(r.journal.id) ?? null, now),
+      hidden: marks.get(`journal:${r.journal.id}`) ?? null,
+    })),
     total,
     page: query.page,
     pageSize: query.pageSize,
@@ -333,52 +446,93 @@ export async function createJournal(
 /**
  * Replaces the whole document of the member's journal (columns, ingredients, steps, press
  * stages, weigh-ins) in one transaction; vat readings and photos stay. The first publish
- * stamps published_at.
+ * stamps published_at. `ifMatch` is the document version the client edited (or '*' to
+ * overwrite knowingly): when the stored document has changed since, nothing is written and
+ * a JournalChangedError carries the journal as it is now.
  */
 export async function updateJournalDocument(
   ctx: AppContext,
   member: AuthMember,
   id: number,
   input: JournalInput,
+  ifMatch: string,
 ): Promise<JournalDto> {
   const db = ctx.database.db;
   await ownedJournal(db, member, id);
   refuseUnverifiedPublish(member, input);
   const styleId = await styleIdFor(db, input.styleSlug);
-  await db.transaction(async (tx) => {
+  const applied = await db.transaction(async (tx) => {
+    // The lock makes the check and the write one step: a second save waits, then sees ours.
     await lockJournal(tx, id);
     const current = await findJournalById(tx, id);
     if (!current) throw notFound();
-    const { readings } = await listJournalChildren(tx, [id]);
+    const children = await listJournalChildren(tx, [id]);
+    if (ifMatch !== '*' && documentVersion(current, children) !== ifMatch) return false;
     await updateJournal(tx, id, {
       ...documentColumns(input, styleId),
-      ...metricsForDocument(input, readings),
+      ...metricsForDocument(input, children.readings),
       publishedAt: current.publishedAt ?? (input.status === 'published' ? new Date() : null),
     });
     await replaceJournalChildren(tx, id, childRows(input));
+    return true;
   });
-  return getJournal(ctx, member, id);
+  const journal = await getJournal(ctx, member, id);
+  if (!applied) {
+    ctx.logger.info(
+      { event: 'journal-save-conflict', journalId: id, userId: member.id },
+      'journal save refused: changed since the client read it',
+    );
+    throw new JournalChangedError(journal);
+  }
+  return journal;
 }
 
-/** Deletes a journal: its maker, a moderator or an admin; child and photo rows cascade. */
+const clipReason = (text: string) => text.trim().slice(0, 1000);
+
+/**
+ * Deletes a journal: its maker, a moderator or an admin; child and photo rows cascade. A
+ * delete by staff of someone else's journal goes into the audit log (with the reason given)
+ * in the same transaction as the delete.
+ */
 export async function deleteJournalAs(
   ctx: AppContext,
   member: AuthMember,
   id: number,
+  reason = '',
 ): Promise<void> {
   const db = ctx.database.db;
-  const journal = await findJournalById(db, id);
-  if (!journal) throw notFound();
+  const found = await findJournalWithRefs(db, id);
+  if (!found) throw notFound();
+  const { journal, maker } = found;
   const access = accessTo(journal, member);
   if (access === 'none') throw notFound();
   if (access === 'reader') {
     throw new ForbiddenError('NOT_YOUR_JOURNAL', 'Only the maker or a moderator can delete this.');
   }
+  const byStaff = access === 'staff' && isStaff(member);
   // Files first: the photo rows that name them cascade with the journal.
   await deletePhotoFilesForJournal(ctx, id);
-  await deleteJournal(db, id);
+  await db.transaction(async (tx) => {
+    await deleteJournal(tx, id);
+    if (byStaff) {
+      await recordAudit(tx, member, {
+        action: 'journal-deleted',
+        targetType: 'journal',
+        targetId: id,
+        targetUser: { id: maker.id, handle: maker.handle },
+        summary: `Journal “${journal.title}” by @${maker.handle}`,
+        note: clipReason(reason),
+      });
+    }
+  });
   ctx.logger.info(
-    { event: 'journal-deleted', journalId: id, actorId: member.id, ownerId: journal.userId },
+    {
+      event: 'journal-deleted',
+      journalId: id,
+      actorId: member.id,
+      ownerId: journal.userId,
+      byStaff,
+    },
     'journal deleted',
   );
 }

@@ -10,6 +10,7 @@ import { AppError, ForbiddenError, NotFoundError } from '../lib/errors';
 import { hashToken } from '../lib/tokens';
 import type { AuthMember } from '../middleware/authenticate';
 import { updateJournal } from '../repositories/journals.repository';
+import { hiddenMarks, recordAudit } from './audit.service';
 import { accessTo, isStaff } from './journal-access';
 import {
   deleteTasting,
@@ -87,7 +88,19 @@ export async function listJournalTastings(
     includeHiddenFor: isStaff(viewer) ? 'all' : viewer?.id,
   });
   const visible = rows.filter((r) => r.tasting.hiddenAt === null).map((r) => r.tasting);
-  return { rows, bands: meansByAgeBand(visible) };
+  // The hidden ones here are the viewer's own (or any, for staff): say why they are hidden.
+  const marks = await hiddenMarks(
+    ctx.database.db,
+    rows.flatMap((r) =>
+      r.tasting.hiddenAt
+        ? [{ type: 'tasting' as const, id: r.tasting.id, hiddenAt: r.tasting.hiddenAt }]
+        : [],
+    ),
+  );
+  return {
+    rows: rows.map((r) => ({ ...r, hidden: marks.get(`tasting:${r.tasting.id}`) ?? null })),
+    bands: meansByAgeBand(visible),
+  };
 }
 
 function checkDates(journal: JournalForTasting, tastedOn: string): number {
@@ -186,15 +199,31 @@ export async function changeTasting(
   return tasting.journalId;
 }
 
-/** Deletes a tasting (its taster, moderators, admins). */
+/**
+ * Deletes a tasting (its taster, moderators, admins). A delete by staff of someone else's
+ * tasting goes into the audit log with the reason given.
+ */
 export async function removeTasting(
   ctx: AppContext,
   member: AuthMember,
   id: number,
+  reason = '',
 ): Promise<void> {
-  const { tasting } = await editableTasting(ctx, member, id);
-  await deleteTasting(ctx.database.db, id);
-  await refreshJournalTastingStats(ctx.database.db, tasting.journalId);
+  const db = ctx.database.db;
+  const { tasting, taster } = await editableTasting(ctx, member, id);
+  const journal = await findJournalForTasting(db, tasting.journalId);
+  await deleteTasting(db, id);
+  if (tasting.tasterId !== member.id) {
+    await recordAudit(db, member, {
+      action: 'tasting-deleted',
+      targetType: 'tasting',
+      targetId: id,
+      targetUser: { id: taster.id, handle: taster.handle },
+      summary: `Tasting by @${taster.handle} of “${journal?.title ?? `journal #${tasting.journalId}`}”`,
+      note: reason.trim(),
+    });
+  }
+  await refreshJournalTastingStats(db, tasting.journalId);
 }
 
 /** Makes a tasting invite link for the owner's wheel, valid for two weeks. */

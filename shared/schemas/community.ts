@@ -84,6 +84,14 @@ export const reportListQuerySchema = z.object({
 const noteSchema = z.string().trim().max(1000, 'Use at most 1000 characters.').default('');
 
 /** POST /api/moderation/reports/:id/actions. */
+/**
+ * The body of a DELETE of a journal, tasting or comment (optional): the reason a moderator
+ * or admin gives for deleting someone else's, kept in the audit log.
+ */
+export const staffDeleteSchema = z.object({
+  reason: z.string().trim().max(1000, 'Use at most 1000 characters for the reason.').default(''),
+});
+
 export const reportActionSchema = z.object({
   action: z.enum(REPORT_ACTIONS, { error: 'Choose dismiss, hide, restore or suspend.' }),
   note: noteSchema,

@@ -6,7 +6,7 @@ import type {
   ReportStatus,
   ReportTarget,
 } from '../constants/community';
-import type { JournalSummaryDto, MakerRef } from './journal';
+import type { HiddenMarkDto, JournalSummaryDto, MakerRef } from './journal';
 import type { Role } from './member';
 
 /**
@@ -34,6 +34,8 @@ export type CommentDto = {
   canEdit: boolean;
   canDelete: boolean;
   canReport: boolean;
+  /** For its author and staff when state is 'hidden': when, and the moderator's note. */
+  hidden?: HiddenMarkDto | null;
   replies: CommentDto[];
 };
 

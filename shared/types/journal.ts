@@ -14,6 +14,13 @@ import type { AmountUnit, ForceUnit, LengthUnit, VolumeUnit } from '../trade/uni
 export type MakerRef = { id: number; handle: string; displayName: string };
 export type StyleRef = { slug: string; name: string; family: string };
 
+/** What a maker (and staff) see on something of theirs a moderator hid; readers never see it. */
+export type HiddenMarkDto = {
+  hiddenAt: string;
+  /** The moderator's note when they hid it; '' when none was written. */
+  reason: string;
+};
+
 export type PhotoDto = {
   id: number;
   caption: string;
@@ -22,6 +29,8 @@ export type PhotoDto = {
   position: number;
   /** URLs of the WebP renditions, smallest first, for srcset. */
   sources: { width: number; url: string }[];
+  /** Set for the maker and staff when a moderator hid the photo. */
+  hidden?: HiddenMarkDto | null;
 };
 
 /** One journal as a card in Discover, a profile or a list. */
@@ -44,6 +53,8 @@ export type JournalSummaryDto = {
   meanOverall: number | null;
   cover: PhotoDto | null;
   updatedAt: string;
+  /** Set in the maker's own lists (and for staff) when a moderator hid the journal. */
+  hidden?: HiddenMarkDto | null;
 };
 
 export type IngredientDto = {
@@ -164,4 +175,10 @@ export type JournalDto = JournalSummaryDto & {
   derived: DerivedFiguresDto;
   canEdit: boolean;
   createdAt: string;
+  /**
+   * The version of the document a PUT replaces (fields, ingredients, steps, press stages,
+   * weigh-ins): send it back in If-Match; readings, photos and tastings do not change it.
+   */
+  version: string;
+  hidden: HiddenMarkDto | null;
 };

@@ -1,5 +1,5 @@
 import type { Defect, FlavourDescriptor } from '../constants/tasting';
-import type { MakerRef } from './journal';
+import type { HiddenMarkDto, MakerRef } from './journal';
 
 export type TastingDto = {
   id: number;
@@ -20,6 +20,8 @@ export type TastingDto = {
   notesHtml: string;
   canEdit: boolean;
   createdAt: string;
+  /** For its taster and staff, when a moderator hid it (others never receive it). */
+  hidden?: HiddenMarkDto | null;
 };
 
 /** Mean scores of the tastings that fall in one age band. */

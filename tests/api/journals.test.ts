@@ -11,6 +11,7 @@ import {
   journalDocument,
   postJournal,
   publicJournalDocument,
+  putJournal,
 } from '../support/journal-factory';
 
 let t: TestApp;
@@ -204,10 +205,10 @@ describe('PUT /api/journals/:id', () => {
     const hidden = await postJournal(owner);
     const shown = (await expectStatus(owner.post('/api/journals', publicJournalDocument()), 201))
       .body;
-    const privateEdit = await other.put(`/api/journals/${hidden.id}`, journalDocument());
+    const privateEdit = await putJournal(other, hidden.id, journalDocument(), hidden.version);
     expect(privateEdit.status).toBe(404);
     expect(privateEdit.body.error.code).toBe('JOURNAL_NOT_FOUND');
-    const publicEdit = await other.put(`/api/journals/${shown.id}`, journalDocument());
+    const publicEdit = await putJournal(other, shown.id, journalDocument(), shown.version);
     expect(publicEdit.status).toBe(403);
     expect((await visitor(t.app).put(`/api/journals/${shown.id}`, journalDocument())).status).toBe(
       401,
@@ -218,10 +219,12 @@ describe('PUT /api/journals/:id', () => {
     const owner = await member();
     const j = await postJournal(owner);
     const doc = journalDocument();
-    const res = await owner.put(`/api/journals/${j.id}`, {
-      ...doc,
-      steps: [{ kind: 'cooking', targetTempC: 'hot' }],
-    });
+    const res = await putJournal(
+      owner,
+      j.id,
+      { ...doc, steps: [{ kind: 'cooking', targetTempC: 'hot' }] },
+      j.version,
+    );
     expect(res.status).toBe(400);
     expect(res.body.error.fields['steps.0.targetTempC']).toBeTruthy();
     expect((await owner.get(`/api/journals/${j.id}`)).body.steps).toHaveLength(9);
@@ -232,8 +235,9 @@ describe('PUT /api/journals/:id', () => {
     const j = await postJournal(owner);
     const reading = { id: randomUUID(), takenAt: '2026-01-10T10:00:00Z', tempC: 31 };
     await expectStatus(owner.post(`/api/journals/${j.id}/readings`, reading), 201);
-    const res = await owner.put(
-      `/api/journals/${j.id}`,
+    const res = await putJournal(
+      owner,
+      j.id,
       publicJournalDocument({
         title: 'Renamed cheddar',
         ingredients: [{ kind: 'salt', name: 'Salt', amount: 30, unit: 'g' }],
@@ -241,6 +245,7 @@ describe('PUT /api/journals/:id', () => {
         pressStages: [],
         weighIns: [{ date: '2026-02-10', massKg: 1.7 }],
       }),
+      j.version,
     );
     expect(res.status).toBe(200);
     expect(res.body.title).toBe('Renamed cheddar');
@@ -255,7 +260,7 @@ describe('PUT /api/journals/:id', () => {
     expect(row.metricCookTempC).toBe(39);
     expect(row.metricPressMaxKpa).toBeNull();
     const first = row.publishedAt!.getTime();
-    await expectStatus(owner.put(`/api/journals/${j.id}`, publicJournalDocument()), 200);
+    await expectStatus(putJournal(owner, j.id, publicJournalDocument(), res.body.version), 200);
     const [again] = await t.ctx.database.db.select().from(journals).where(eq(journals.id, j.id));
     expect(again.publishedAt!.getTime()).toBe(first);
   });
@@ -263,7 +268,7 @@ describe('PUT /api/journals/:id', () => {
   it('refuses to publish an existing draft for an unverified member (403)', async () => {
     const owner = await member({ verified: false });
     const j = await postJournal(owner);
-    const res = await owner.put(`/api/journals/${j.id}`, publicJournalDocument());
+    const res = await putJournal(owner, j.id, publicJournalDocument(), j.version);
     expect(res.status).toBe(403);
     expect(res.body.error.code).toBe('EMAIL_NOT_VERIFIED');
   });

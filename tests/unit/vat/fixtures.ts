@@ -90,6 +90,8 @@ export function journalDto(overrides: Partial<JournalDto> = {}): JournalDto {
     derived: {} as JournalDto['derived'],
     canEdit: true,
     createdAt: '2026-03-13T20:00:00.000Z',
+    version: 'd1-fixture',
+    hidden: null,
     ...overrides,
   };
 }
