@@ -103,8 +103,9 @@ export function createApp(ctx: AppContext): Express {
   if (!config.isProduction && ctx.mailbox) app.use('/api/dev', devRouter(ctx.mailbox));
   app.use('/api', apiNotFound);
 
-  // Photo renditions: no session, no CSRF; before the client so a missing photo is a 404.
-  app.use('/media', mediaRouter(ctx));
+  // Photo renditions: no CSRF, and the session only for a photo not everyone may see;
+  // before the client so a missing photo is a 404.
+  app.use('/media', mediaRouter(ctx, [sessions.handler, authenticate(ctx)]));
   if (config.serveClient) mountClient(app, config.clientDist);
 
   app.use(errorHandler(config.env === 'development'));

@@ -112,3 +112,26 @@ export function listPhotoFilesForMember(db: Db, userId: number) {
     .innerJoin(journals, eq(journals.id, journalPhotos.journalId))
     .where(eq(journals.userId, userId));
 }
+
+/**
+ * The photo a stored file belongs to (by its file key), with what decides who may fetch it:
+ * the photo's hide and its journal's owner, status, visibility and hide; undefined when no
+ * photo row names the key. One lookup on journal_photos_file_key_idx and the journal's key.
+ */
+export async function findPhotoAccessByFileKey(db: Db, fileKey: string) {
+  const [row] = await db
+    .select({
+      photoHiddenAt: journalPhotos.hiddenAt,
+      journal: {
+        userId: journals.userId,
+        status: journals.status,
+        visibility: journals.visibility,
+        hiddenAt: journals.hiddenAt,
+      },
+    })
+    .from(journalPhotos)
+    .innerJoin(journals, eq(journals.id, journalPhotos.journalId))
+    .where(eq(journalPhotos.fileKey, fileKey))
+    .limit(1);
+  return row;
+}

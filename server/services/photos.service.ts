@@ -19,6 +19,7 @@ import { presentPhoto } from '../presenters/photo.presenter';
 import {
   deletePhotoRow,
   findJournalAccess,
+  findPhotoAccessByFileKey,
   findPhoto,
   insertPhotos,
   listPhotoFilesForJournal,
@@ -31,7 +32,7 @@ import {
   updatePhotoCaption,
   type NewPhotoRow,
 } from '../repositories/photos.repository';
-import { accessTo } from './journal-access';
+import { accessTo, type Viewer } from './journal-access';
 
 const NO_PHOTOS_ADDED = 'No photos were added: fix or remove it and upload the others again.';
 const FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, TIFF or GIF';
@@ -87,6 +88,28 @@ export async function requirePhotoOwner(
     );
   }
   throw journalNotFound();
+}
+
+/**
+ * Who may fetch a stored rendition (a /media file name): 'public' when anyone may read the
+ * photo (its journal is published, public or unlisted, not hidden, and the photo is not
+ * hidden), so it may be cached anywhere; otherwise a check of the viewer, who must be the
+ * journal's maker or staff who may read the journal; null when no photo names the file.
+ */
+export async function mediaAccess(
+  ctx: AppContext,
+  fileName: string,
+): Promise<'public' | { allows: (viewer: Viewer) => boolean } | null> {
+  const fileKey = fileName.slice(0, fileName.indexOf('-'));
+  const row = await findPhotoAccessByFileKey(ctx.database.db, fileKey);
+  if (!row) return null;
+  if (row.photoHiddenAt === null && accessTo(row.journal, undefined) === 'reader') return 'public';
+  return {
+    allows: (viewer) => {
+      const access = accessTo(row.journal, viewer);
+      return access === 'owner' || access === 'staff';
+    },
+  };
 }
 
 // ---------------------------------------------------------------------------------------------

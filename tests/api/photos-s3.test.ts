@@ -12,6 +12,7 @@ import type { PhotoDto } from '../../shared/types/journal';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { startFakeS3, type FakeS3 } from '../support/fake-s3';
 import { signedIn, unique } from '../support/factories';
+import { checkMediaAccess } from '../support/media-access';
 
 // The same photo paths as photos.test.ts, with STORAGE=s3 against s3rver on loopback.
 let s3: FakeS3;
@@ -134,5 +135,11 @@ describe('photos through the API with STORAGE=s3', () => {
     const after = await bucketKeys();
     for (const name of names) expect(after).not.toContain(`photos/${name}`);
     expect((await visitor(t.app).get(photo.sources[1].url)).status).toBe(404);
+  });
+});
+
+describe('who may fetch a photo with STORAGE=s3', () => {
+  it('gates hidden photos and photos of draft, private or hidden journals before the bucket is read', async () => {
+    await checkMediaAccess(t);
   });
 });
