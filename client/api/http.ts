@@ -1,16 +1,25 @@
 // The only code that knows how to talk to the server: JSON in and out, errors as ApiError.
 
 export type ApiErrorBody = {
-  error?: { code?: string; message?: string; fields?: Record<string, string> };
+  error?: {
+    code?: string;
+    message?: string;
+    fields?: Record<string, string>;
+    [extra: string]: unknown;
+  };
 };
 
-/** An error answer from the API, with its stable code and per-field messages. */
+/**
+ * An error answer from the API, with its stable code, per-field messages and any other
+ * values the server put in the error (e.g. `current` on a 409 JOURNAL_CHANGED).
+ */
 export class ApiError extends Error {
   constructor(
     public readonly status: number,
     public readonly code: string,
     message: string,
     public readonly fields: Record<string, string> = {},
+    public readonly details: Record<string, unknown> = {},
   ) {
     super(message);
     this.name = 'ApiError';
@@ -18,7 +27,12 @@ export class ApiError extends Error {
 }
 
 type Method = 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
-type RequestOptions = { query?: Record<string, unknown>; body?: unknown; signal?: AbortSignal };
+type RequestOptions = {
+  query?: Record<string, unknown>;
+  body?: unknown;
+  signal?: AbortSignal;
+  headers?: Record<string, string>;
+};
 
 let csrfToken: string | null = null;
 
@@ -66,7 +80,7 @@ async function send<T>(
   options: RequestOptions,
   retried = false,
 ): Promise<T> {
-  const headers: Record<string, string> = { accept: 'application/json' };
+  const headers: Record<string, string> = { ...options.headers, accept: 'application/json' };
   let body: BodyInit | undefined;
   if (options.body instanceof FormData) body = options.body;
   else if (options.body !== undefined) {
@@ -100,11 +114,13 @@ async function send<T>(
       csrfToken = null;
       return send<T>(method, path, options, true);
     }
+    const { code, message, fields, ...details } = err ?? {};
     throw new ApiError(
       response.status,
-      err?.code ?? 'HTTP_ERROR',
-      err?.message ?? `The server answered ${response.status}.`,
-      err?.fields,
+      code ?? 'HTTP_ERROR',
+      message ?? `The server answered ${response.status}.`,
+      fields,
+      details,
     );
   }
   return data as T;
@@ -114,7 +130,8 @@ export const http = {
   get: <T>(path: string, query?: Record<string, unknown>, signal?: AbortSignal) =>
     send<T>('GET', path, { query, signal }),
   post: <T>(path: string, body?: unknown) => send<T>('POST', path, { body }),
-  put: <T>(path: string, body?: unknown) => send<T>('PUT', path, { body }),
+  put: <T>(path: string, body?: unknown, headers?: Record<string, string>) =>
+    send<T>('PUT', path, { body, headers }),
   patch: <T>(path: string, body?: unknown) => send<T>('PATCH', path, { body }),
   delete: <T>(path: string, body?: unknown) => send<T>('DELETE', path, { body }),
 };

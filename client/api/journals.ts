@@ -1,7 +1,7 @@
 import type { JournalExportTable, JournalInput, JournalListQuery } from '@shared/schemas/journal';
 import type { JournalDto, JournalSummaryDto } from '@shared/types/journal';
 import type { VolumeUnit } from '@shared/trade/units';
-import { http } from './http';
+import { ApiError, http } from './http';
 
 /** One page of journal cards with the total count behind the filters. */
 export type JournalPage = {
@@ -37,12 +37,24 @@ export const fetchJournal = (id: number | string, signal?: AbortSignal) =>
 /** Creates a journal from a whole document (SI values). */
 export const createJournal = (doc: JournalInput) => http.post<JournalDto>('/api/journals', doc);
 
-/** Replaces a journal's whole document (owner only). */
-export const updateJournal = (id: number, doc: JournalInput) =>
-  http.put<JournalDto>(`/api/journals/${id}`, doc);
+/**
+ * Replaces a journal's whole document (owner only), if it is still at `version` (the
+ * JournalDto's version the edits started from); otherwise a 409 JOURNAL_CHANGED ApiError
+ * whose details.current is the journal as it is now.
+ */
+export const updateJournal = (id: number, doc: JournalInput, version: string) =>
+  http.put<JournalDto>(`/api/journals/${id}`, doc, { 'if-match': `"${version}"` });
 
-/** Deletes a journal, its photos and its rows. */
-export const deleteJournal = (id: number) => http.delete<void>(`/api/journals/${id}`);
+/** Deletes a journal, its photos and its rows; staff deleting a member's journal give a reason. */
+export const deleteJournal = (id: number, reason = '') =>
+  http.delete<void>(`/api/journals/${id}`, reason ? { reason } : undefined);
+
+/** The journal inside a 409 JOURNAL_CHANGED answer, or null for any other error. */
+export function changedJournalOf(error: unknown): JournalDto | null {
+  if (!(error instanceof ApiError) || error.code !== 'JOURNAL_CHANGED') return null;
+  const current = error.details.current as JournalDto | undefined;
+  return current && typeof current.version === 'string' ? current : null;
+}
 
 /** Copies a journal into a new private draft for the caller, scaled to their milk volume. */
 export const copyJournal = (id: number, body: { milkVolume: number; unit: VolumeUnit }) =>

@@ -9,9 +9,12 @@ import { http } from './http';
 /** One journal with its readings and derived figures; 404 when missing or not visible. */
 export const fetchVatJournal = (id: number) => http.get<JournalDto>(`/api/journals/${id}`);
 
-/** Replaces the journal's whole document (owner only); vat readings and photos stay. */
-export const putVatJournal = (id: number, doc: JournalInput) =>
-  http.put<JournalDto>(`/api/journals/${id}`, doc);
+/**
+ * Replaces the journal's whole document (owner only) if it is still at `version`; vat
+ * readings and photos stay. A 409 JOURNAL_CHANGED carries the journal as it is now.
+ */
+export const putVatJournal = (id: number, doc: JournalInput, version: string) =>
+  http.put<JournalDto>(`/api/journals/${id}`, doc, { 'if-match': `"${version}"` });
 
 /** Stores one reading: 201 the first time, 200 with the stored reading on a replay. */
 export const postReading = (id: number, reading: VatReadingInput) =>

@@ -33,9 +33,9 @@ export function useJournal(id: MaybeRefOrGetter<string | number>) {
     }
   }
 
-  /** Deletes the journal (its maker, or staff). */
-  async function remove() {
-    if (journal.value) await deleteJournal(journal.value.id);
+  /** Deletes the journal (its maker, or staff with a reason for the audit log). */
+  async function remove(reason = '') {
+    if (journal.value) await deleteJournal(journal.value.id, reason);
   }
 
   /** Copies the journal into a new private draft scaled to the given milk volume. */

@@ -54,7 +54,9 @@ export function useJournalAutosave() {
       saveTimer = setTimeout(autosave, 1000);
       return;
     }
-    lastAutosaveFailed.value = (await editor.save({ quiet: true })) !== 'saved';
+    const outcome = await editor.save({ quiet: true });
+    // A conflict is shown on its own, with the choice; it is not a failed autosave.
+    lastAutosaveFailed.value = outcome !== 'saved' && outcome !== 'conflict';
   }
 
   watch(

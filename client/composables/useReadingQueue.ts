@@ -1,9 +1,13 @@
 import type { JournalInput } from '@shared/schemas/journal';
 import { computed, onScopeDispose, shallowRef } from 'vue';
+import type { JournalDto } from '@shared/types/journal';
+import { changedJournalOf } from '../api/journals';
 import { postReading, postReadings, putVatJournal } from '../api/vat';
+import { documentFromDto } from '../lib/vat/document';
 import {
   Outbox,
   webStorageStore,
+  type DocumentBase,
   type OutboxItem,
   type OutboxSend,
   type OutboxSnapshot,
@@ -16,7 +20,15 @@ export const OUTBOX_KEY = 'rindwise:vat:outbox';
 type Options = {
   onSent?: (send: OutboxSend, result: unknown) => void;
   onRejected?: (send: OutboxSend, error: unknown) => void;
+  onConflict?: (send: OutboxSend, error: unknown) => void;
 };
+
+/** The journal an accepted update answered with, as the base of the updates behind it. */
+function acknowledged(result: unknown): DocumentBase | null {
+  const dto = result as JournalDto | null;
+  if (!dto || typeof dto.version !== 'string' || !Array.isArray(dto.steps)) return null;
+  return { version: dto.version, document: documentFromDto(dto) };
+}
 
 const browserStorage = (): Storage | undefined => {
   try {
@@ -49,11 +61,16 @@ export function useReadingQueue(options: Options = {}) {
         readings.length === 1
           ? postReading(journalId, readings[0])
           : postReadings(journalId, readings),
-      sendDocument: (journalId, document) => putVatJournal(journalId, document),
+      // An update queued before versions existed goes as it always did (If-Match: *).
+      sendDocument: (journalId, document, baseVersion) =>
+        putVatJournal(journalId, document, baseVersion ?? '*'),
     },
     onChange: (s) => (snapshot.value = s),
     onSent: options.onSent,
     onRejected: options.onRejected,
+    onConflict: options.onConflict,
+    acknowledged,
+    currentOf: changedJournalOf,
   });
 
   const onOnline = () => {
@@ -94,9 +111,14 @@ export function useReadingQueue(options: Options = {}) {
     /** Queues a reading (sent at once when the connection allows). */
     enqueueReading: (journalId: number, reading: VatReadingInput) =>
       outbox.enqueueReading(journalId, reading),
-    /** Queues the latest whole document of a journal, replacing older queued ones. */
-    enqueueDocument: (journalId: number, document: JournalInput) =>
-      outbox.enqueueDocument(journalId, document),
+    /** Queues the latest whole document of a journal made on `base`, replacing older queued ones. */
+    enqueueDocument: (journalId: number, document: JournalInput, base?: DocumentBase) =>
+      outbox.enqueueDocument(journalId, document, base),
+    /** Replaces a held update with the merged or decided document, and sends it. */
+    resolveDocument: (key: string, document: JournalInput, base: DocumentBase) =>
+      outbox.resolveDocument(key, document, base),
+    /** Drops a held update: the maker keeps the journal as it is on the server. */
+    dropDocument: (key: string) => outbox.dropDocument(key),
     /** Tries to send now, without waiting for the next retry. */
     sendNow: () => outbox.online(),
   };

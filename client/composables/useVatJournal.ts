@@ -1,10 +1,16 @@
 import type { JournalInput } from '@shared/schemas/journal';
 import type { JournalDto, ReadingDto } from '@shared/types/journal';
-import { computed, ref, shallowRef } from 'vue';
+import { computed, ref, shallowRef, watch } from 'vue';
 import { ApiError } from '../api/http';
 import { fetchVatJournal } from '../api/vat';
+import { describePath, merge3, resolveConflicts, type MergeResult } from '../lib/merge3';
 import { checkDocument, documentFromDto } from '../lib/vat/document';
-import { countWaiting, type OutboxSend } from '../lib/vat/outbox';
+import {
+  countWaiting,
+  type DocumentBase,
+  type OutboxItem,
+  type OutboxSend,
+} from '../lib/vat/outbox';
 import {
   makeReading,
   mergeReadings,
@@ -45,6 +51,10 @@ export function useVatJournal(journalId: number) {
   const serverReadings = shallowRef<ReadingDto[]>([]);
   const logged = shallowRef<VatReadingInput[]>([]);
   const problems = ref<string[]>([]);
+  /** Good news about a merge with changes made elsewhere (shown until dismissed). */
+  const notices = ref<string[]>([]);
+  /** The journal as the server last answered it, with its version: what new updates build on. */
+  const base = shallowRef<DocumentBase | null>(null);
 
   function onSent(send: OutboxSend, result: unknown) {
     if (send.journalId !== journalId) return;
@@ -56,6 +66,7 @@ export function useVatJournal(journalId: number) {
     const fresh = result as JournalDto | null;
     if (fresh && Array.isArray(fresh.readings)) {
       dto.value = fresh;
+      base.value = { version: fresh.version, document: documentFromDto(fresh) };
       serverReadings.value = withReadings(serverReadings.value, fresh.readings);
     }
   }
@@ -87,6 +98,63 @@ export function useVatJournal(journalId: number) {
   );
   const waiting = computed(() => countWaiting(queue.items.value));
 
+  // --- an update the server refused because the journal changed elsewhere ---------------
+
+  type Held = Extract<OutboxItem, { kind: 'document' }> & { conflict: { current: unknown } };
+  const held = computed(
+    () =>
+      queue.items.value.find(
+        (i): i is Held => i.kind === 'document' && i.journalId === journalId && !!i.conflict,
+      ) ?? null,
+  );
+
+  /** What the held update and the saved journal say, merged; null when nothing is held. */
+  const conflict = computed(() => {
+    const item = held.value;
+    const current = item?.conflict.current as JournalDto | null | undefined;
+    if (!item || !current || typeof current.version !== 'string') return null;
+    const theirs = documentFromDto(current);
+    // An update without a base (queued before versions) counts every difference as the vat's.
+    const from = item.base?.document ?? theirs;
+    const result: MergeResult<JournalInput> = merge3(from, item.document, theirs, {
+      unionLists: ['weighIns'],
+    });
+    return { key: item.key, current, theirs, result };
+  });
+
+  function settle(document: JournalInput, current: JournalDto, theirs: JournalInput, key: string) {
+    const onServer = { version: current.version, document: theirs };
+    dto.value = current;
+    base.value = onServer;
+    doc.value = document;
+    if (JSON.stringify(document) === JSON.stringify(theirs)) queue.dropDocument(key);
+    else void queue.resolveDocument(key, document, onServer);
+  }
+
+  // Changes to different things (the vat's step times, the laptop's notes) merge by themselves.
+  watch(
+    conflict,
+    (c) => {
+      if (!c || c.result.conflicts.length) return;
+      settle(c.result.merged, c.current, c.theirs, c.key);
+      const what = [...new Set(c.result.theirChanges.map(describePath))];
+      notices.value = [
+        ...notices.value,
+        what.length
+          ? `This journal was changed elsewhere (${what.join(', ')}). Your vat times were added on top of it and saved.`
+          : 'This journal was changed elsewhere; your vat times were saved on top of it.',
+      ];
+    },
+    { immediate: true },
+  );
+
+  /** Settles a held update: keep the vat's values where both changed, or the saved ones. */
+  function decideConflict(side: 'mine' | 'theirs') {
+    const c = conflict.value;
+    if (!c) return;
+    settle(resolveConflicts(c.result, side), c.current, c.theirs, c.key);
+  }
+
   /** The latest whole document of this journal still in the queue, if any. */
   function queuedDocument(): JournalInput | null {
     const item = [...queue.items.value]
@@ -104,6 +172,7 @@ export function useVatJournal(journalId: number) {
     try {
       const journal = await fetchVatJournal(journalId);
       dto.value = journal;
+      base.value = { version: journal.version, document: documentFromDto(journal) };
       serverReadings.value = journal.readings;
       if (!journal.canEdit) {
         state.value = 'not-yours';
@@ -136,12 +205,13 @@ export function useVatJournal(journalId: number) {
     const problem = checkDocument(next);
     if (problem) return problem;
     doc.value = next;
-    void queue.enqueueDocument(journalId, next);
+    void queue.enqueueDocument(journalId, next, base.value ?? undefined);
     return null;
   }
 
   function dismissProblems() {
     problems.value = [];
+    notices.value = [];
   }
 
   void load();
@@ -156,6 +226,9 @@ export function useVatJournal(journalId: number) {
     queue,
     waiting,
     problems,
+    notices,
+    conflict,
+    decideConflict,
     load,
     logReading,
     saveDocument,

@@ -7,6 +7,7 @@ import { computed, ref } from 'vue';
 import * as journalsApi from '../api/journals';
 import * as photosApi from '../api/photos';
 import { ApiError } from '../api/http';
+import { merge3, resolveConflicts, type MergeResult } from '../lib/merge3';
 import {
   documentFromForm,
   emptyForm,
@@ -16,7 +17,17 @@ import {
   type JournalForm,
 } from '../composables/journalForm';
 
-export type SaveOutcome = 'saved' | 'invalid' | 'failed';
+export type SaveOutcome = 'saved' | 'invalid' | 'failed' | 'conflict';
+
+/** A save refused because the journal changed elsewhere, with both sides' values merged. */
+export type EditorConflict = {
+  current: JournalDto;
+  theirs: JournalForm;
+  result: MergeResult<JournalForm>;
+};
+
+const MERGE_OPTIONS = { ignoreKeys: ['key'], unionLists: ['weighIns'] } as const;
+const clone = <T>(value: T): T => JSON.parse(JSON.stringify(value)) as T;
 
 // Schema limits are in SI; a maker working in °F or inches should read their own numbers.
 function localise(path: string, message: string, units: FormUnits, mouldUnit: string): string {
@@ -51,6 +62,13 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
   const emailNotVerified = ref(false);
   const photos = ref<PhotoDto[]>([]);
   const title = ref('');
+  /** The version of the journal the form was loaded from or last saved as (If-Match). */
+  const version = ref<string | null>(null);
+  /** The form as that version held it: the common base when a save meets a newer version. */
+  const baseForm = ref<JournalForm | null>(null);
+  const conflict = ref<EditorConflict | null>(null);
+  /** What was merged in from elsewhere at the last save, for a short notice. */
+  const mergedChanges = ref<string[]>([]);
 
   const dirty = computed(() => JSON.stringify(form.value) !== snapshot.value);
   const isNew = computed(() => journalId.value === null);
@@ -71,6 +89,10 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
     emailNotVerified.value = false;
     photos.value = [];
     title.value = '';
+    version.value = null;
+    baseForm.value = null;
+    conflict.value = null;
+    mergedChanges.value = [];
     markSaved();
   }
 
@@ -80,7 +102,42 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
     savedStatus.value = dto.status;
     photos.value = [...dto.photos].sort((a, b) => a.position - b.position);
     title.value = dto.title;
+    version.value = dto.version;
+    baseForm.value = clone(form.value);
+    conflict.value = null;
     markSaved();
+  }
+
+  // The journal changed elsewhere: merge its changes with the form. Different fields merge
+  // by themselves (the save is tried again once); the same field changed on both sides waits
+  // for the maker in `conflict`. Nothing typed here is dropped.
+  function meetNewerVersion(current: JournalDto): 'merged' | 'conflict' {
+    const theirs = formFromJournal(current, units.value);
+    const result = merge3(baseForm.value ?? theirs, clone(form.value), theirs, MERGE_OPTIONS);
+    version.value = current.version;
+    baseForm.value = theirs;
+    snapshot.value = JSON.stringify(theirs);
+    title.value = current.title;
+    photos.value = [...current.photos].sort((a, b) => a.position - b.position);
+    savedStatus.value = current.status;
+    if (result.conflicts.length) {
+      conflict.value = { current, theirs, result };
+      return 'conflict';
+    }
+    form.value = result.merged;
+    mergedChanges.value = result.theirChanges;
+    return 'merged';
+  }
+
+  /** Settles a conflict (keep this form's values, or the saved ones), then saves. */
+  async function decideConflict(side: 'mine' | 'theirs'): Promise<SaveOutcome> {
+    const c = conflict.value;
+    if (!c) return 'failed';
+    form.value = resolveConflicts(c.result, side);
+    mergedChanges.value = c.result.theirChanges;
+    conflict.value = null;
+    formError.value = null;
+    return save();
   }
 
   /** Starts a blank batch in the member's units (the view may then restore a backup). */
@@ -129,9 +186,11 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
    * `publish` publishes it with that visibility. Field errors land in `errors`.
    */
   async function save(
-    options: { publish?: Visibility; quiet?: boolean } = {},
+    options: { publish?: Visibility; quiet?: boolean; retried?: boolean } = {},
   ): Promise<SaveOutcome> {
     if (saving.value) return 'failed';
+    // Held until the maker settles it: autosave must not pick a side for them.
+    if (conflict.value) return 'conflict';
     const previous = { status: form.value.status, visibility: form.value.visibility };
     if (options.publish) {
       form.value.status = 'published';
@@ -151,8 +210,10 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
       const dto =
         journalId.value === null
           ? await journalsApi.createJournal(doc)
-          : await journalsApi.updateJournal(journalId.value, doc);
+          : await journalsApi.updateJournal(journalId.value, doc, version.value ?? '*');
       journalId.value = dto.id;
+      version.value = dto.version;
+      baseForm.value = formFromJournal(dto, units.value);
       savedStatus.value = dto.status;
       title.value = dto.title;
       photos.value = [...dto.photos].sort((a, b) => a.position - b.position);
@@ -162,6 +223,16 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
       return 'saved';
     } catch (error) {
       Object.assign(form.value, previous);
+      const current = journalsApi.changedJournalOf(error);
+      if (current) {
+        saving.value = false;
+        formError.value = null;
+        if (meetNewerVersion(current) === 'conflict') return 'conflict';
+        if (!options.retried) return save({ ...options, retried: true });
+        formError.value =
+          'The journal changed elsewhere again while saving. Both sets of changes are in the form now: save again.';
+        return 'failed';
+      }
       if (error instanceof ApiError) {
         if (error.code === 'EMAIL_NOT_VERIFIED') emailNotVerified.value = true;
         else if (Object.keys(error.fields).length) {
@@ -273,6 +344,10 @@ export const useJournalEditorStore = defineStore('journalEditor', () => {
     emailNotVerified,
     photos,
     title,
+    version,
+    conflict,
+    mergedChanges,
+    decideConflict,
     dirty,
     isNew,
     startNew,

@@ -4,7 +4,11 @@
 // - a reading carries a client-made UUID and the server stores an id once (201, then 200 on
 //   a replay), so resending after a lost answer is harmless;
 // - a journal update replaces the whole document, so only the latest one matters: queuing a
-//   new one drops the older ones for the same journal (coalescing).
+//   new one drops the older ones for the same journal (coalescing);
+// - a journal update carries the version of the journal it was made on (If-Match): when the
+//   journal changed elsewhere meanwhile, the server answers 409 with the journal as it is
+//   now, and the update stays in the queue, held, with that answer, until the page merges
+//   it or the maker decides (nothing typed at the vat is dropped); readings still go out.
 // Items go out in the order they were queued; consecutive readings of one journal go as one
 // batch. The state lives in the store (localStorage in the app), read afresh on every step,
 // so two tabs or a reload mid-send see the same queue.
@@ -26,12 +30,25 @@ export type OutboxItem =
       journalId: number;
       document: JournalInput;
       queuedAt: number;
+      /** The journal this update was made on (its version and document); absent in old queues. */
+      base?: DocumentBase;
+      /** Set when the server refused it (409): the journal as it was then; not sent while set. */
+      conflict?: { current: unknown; at: number };
     };
+
+/** A journal document as the server held it, with its version. */
+export type DocumentBase = { version: string; document: JournalInput };
 
 /** One send: a batch of readings of one journal, or one whole-document update. */
 export type OutboxSend =
   | { kind: 'readings'; journalId: number; keys: string[]; readings: VatReadingInput[] }
-  | { kind: 'document'; journalId: number; keys: string[]; document: JournalInput };
+  | {
+      kind: 'document';
+      journalId: number;
+      keys: string[];
+      document: JournalInput;
+      baseVersion: string | null;
+    };
 
 /** Queues a reading; a reading already queued (same id) is not queued twice. */
 export function enqueueReading(
@@ -47,21 +64,92 @@ export function enqueueReading(
 
 let documentSeq = 0;
 
-/** Queues a whole-document update, dropping older queued updates of the same journal. */
+type DocumentItem = Extract<OutboxItem, { kind: 'document' }>;
+
+const documentOf = (items: readonly OutboxItem[], journalId: number) =>
+  items.find((i): i is DocumentItem => i.kind === 'document' && i.journalId === journalId);
+
+/**
+ * Queues a whole-document update made on `base`, dropping older queued updates of the same
+ * journal. An older one not yet accepted keeps its base (the server has not seen it) and its
+ * held conflict, so the newer document is checked against the same version.
+ */
 export function enqueueDocument(
   items: readonly OutboxItem[],
   journalId: number,
   document: JournalInput,
   now: number,
+  base?: DocumentBase,
 ): OutboxItem[] {
   documentSeq += 1;
   const key = `document:${journalId}:${now}:${documentSeq}:${Math.random().toString(36).slice(2)}`;
+  const older = documentOf(items, journalId);
   const kept = items.filter((item) => !(item.kind === 'document' && item.journalId === journalId));
-  return [...kept, { kind: 'document', key, journalId, document, queuedAt: now }];
+  const item: DocumentItem = { kind: 'document', key, journalId, document, queuedAt: now };
+  const keptBase = older ? older.base : base;
+  if (keptBase) item.base = keptBase;
+  if (older?.conflict) item.conflict = older.conflict;
+  return [...kept, item];
 }
 
-/** Returns the next send: the first item, with the readings of its journal that follow it. */
-export function nextSend(items: readonly OutboxItem[], maxBatch = 50): OutboxSend | null {
+/** The queue with a journal's held update replaced (merged or decided), sendable again. */
+export function resolveDocument(
+  items: readonly OutboxItem[],
+  key: string,
+  document: JournalInput,
+  base: DocumentBase,
+): OutboxItem[] {
+  return items.map((item) =>
+    item.key === key && item.kind === 'document'
+      ? {
+          kind: 'document',
+          key,
+          journalId: item.journalId,
+          document,
+          queuedAt: item.queuedAt,
+          base,
+        }
+      : item,
+  );
+}
+
+/** After an update of a journal was accepted: the updates queued behind it build on the new version. */
+export function rebaseDocuments(
+  items: readonly OutboxItem[],
+  journalId: number,
+  from: string | null,
+  to: DocumentBase,
+): OutboxItem[] {
+  return items.map((item) =>
+    item.kind === 'document' &&
+    item.journalId === journalId &&
+    !item.conflict &&
+    (item.base?.version ?? null) === from
+      ? { ...item, base: to }
+      : item,
+  );
+}
+
+/** The queue with a refused update held, with what the server holds now. */
+export function holdDocument(
+  items: readonly OutboxItem[],
+  key: string,
+  current: unknown,
+  now: number,
+): OutboxItem[] {
+  return items.map((item) =>
+    item.key === key && item.kind === 'document'
+      ? { ...item, conflict: { current, at: now } }
+      : item,
+  );
+}
+
+/**
+ * Returns the next send: the first item, with the readings of its journal that follow it.
+ * Held updates wait for the maker and are passed over.
+ */
+export function nextSend(all: readonly OutboxItem[], maxBatch = 50): OutboxSend | null {
+  const items = all.filter((item) => !(item.kind === 'document' && item.conflict));
   const first = items[0];
   if (!first) return null;
   if (first.kind === 'document') {
@@ -70,6 +158,7 @@ export function nextSend(items: readonly OutboxItem[], maxBatch = 50): OutboxSen
       journalId: first.journalId,
       keys: [first.key],
       document: first.document,
+      baseVersion: first.base?.version ?? null,
     };
   }
   const batch: Extract<OutboxItem, { kind: 'reading' }>[] = [];
@@ -110,8 +199,11 @@ export function backoffMs(attempt: number, baseMs = 1000, maxMs = 60_000): numbe
   return Math.min(maxMs, baseMs * 2 ** Math.min(n - 1, 30));
 }
 
-/** How a failed send is handled: try again later, wait for sign-in, or give the item up. */
-export type FailureKind = 'retry' | 'signed-out' | 'rejected';
+/**
+ * How a failed send is handled: try again later, wait for sign-in, hold it for the maker
+ * (the journal changed elsewhere), or give the item up.
+ */
+export type FailureKind = 'retry' | 'signed-out' | 'conflict' | 'rejected';
 
 /** Sorts a send failure by its HTTP status (0 is a lost connection, as client/api/http.ts). */
 export function classifyFailure(error: unknown): FailureKind {
@@ -124,6 +216,7 @@ export function classifyFailure(error: unknown): FailureKind {
   if (!Number.isFinite(status) || status === 0) return 'retry';
   if (status === 401) return 'signed-out';
   if (status === 408 || status === 429 || status >= 500) return 'retry';
+  if (status === 409 && (error as { code?: unknown }).code === 'JOURNAL_CHANGED') return 'conflict';
   if (status >= 400) return 'rejected';
   return 'retry';
 }
@@ -135,7 +228,12 @@ export interface OutboxStore {
 
 export interface OutboxTransport {
   sendReadings(journalId: number, readings: VatReadingInput[]): Promise<unknown>;
-  sendDocument(journalId: number, document: JournalInput): Promise<unknown>;
+  /** `baseVersion` null: an update queued before versions existed (sent as If-Match: *). */
+  sendDocument(
+    journalId: number,
+    document: JournalInput,
+    baseVersion: string | null,
+  ): Promise<unknown>;
 }
 
 export type OutboxStatus = 'idle' | 'sending' | 'waiting' | 'offline' | 'signed-out';
@@ -161,6 +259,12 @@ export interface OutboxOptions {
   onChange?: (snapshot: OutboxSnapshot) => void;
   onSent?: (send: OutboxSend, result: unknown) => void;
   onRejected?: (send: OutboxSend, error: unknown) => void;
+  /** What an accepted update's answer says the journal now is, to rebase the updates behind it. */
+  acknowledged?: (result: unknown) => DocumentBase | null;
+  /** The journal in a 409 answer (the error's current), stored with the held update. */
+  currentOf?: (error: unknown) => unknown;
+  /** An update was held: the journal changed elsewhere. */
+  onConflict?: (send: OutboxSend, error: unknown) => void;
 }
 
 /** Runs the queue: sends in order, one at a time, retrying with backoff after a failure. */
@@ -207,11 +311,24 @@ export class Outbox {
     return this.flush();
   }
 
-  /** Queues the latest whole document of a journal and starts sending. */
-  enqueueDocument(journalId: number, document: JournalInput): Promise<void> {
-    this.update((items) => enqueueDocument(items, journalId, document, this.now()));
+  /** Queues the latest whole document of a journal, made on `base`, and starts sending. */
+  enqueueDocument(journalId: number, document: JournalInput, base?: DocumentBase): Promise<void> {
+    this.update((items) => enqueueDocument(items, journalId, document, this.now(), base));
     this.changed();
     return this.flush();
+  }
+
+  /** Replaces a held update with the merged or decided document on `base`, and sends it. */
+  resolveDocument(key: string, document: JournalInput, base: DocumentBase): Promise<void> {
+    this.update((items) => resolveDocument(items, key, document, base));
+    this.changed();
+    return this.flush();
+  }
+
+  /** Drops a held update (the maker took the journal as it is on the server). */
+  dropDocument(key: string): void {
+    this.update((items) => removeKeys(items, [key]));
+    this.changed();
   }
 
   /** Sends what is queued, in order, until the queue is empty or a send fails. */
@@ -283,7 +400,11 @@ export class Outbox {
         result =
           send.kind === 'readings'
             ? await this.options.transport.sendReadings(send.journalId, send.readings)
-            : await this.options.transport.sendDocument(send.journalId, send.document);
+            : await this.options.transport.sendDocument(
+                send.journalId,
+                send.document,
+                send.baseVersion,
+              );
       } catch (error) {
         this.lastError = error instanceof Error ? error.message : String(error);
         const kind = classifyFailure(error);
@@ -297,6 +418,14 @@ export class Outbox {
           this.changed('signed-out');
           return;
         }
+        if (kind === 'conflict' && send.kind === 'document') {
+          // Kept, and passed over until the page merges it or the maker decides.
+          const current = this.options.currentOf?.(error) ?? null;
+          this.update((items) => holdDocument(items, send.keys[0], current, this.now()));
+          this.options.onConflict?.(send, error);
+          this.changed();
+          continue;
+        }
         if (send.keys.length > 1) {
           // One bad reading must not take the others with it: send these one by one.
           this.singles = send.keys.length;
@@ -309,6 +438,11 @@ export class Outbox {
         continue;
       }
       this.update((items) => removeKeys(items, send.keys));
+      if (send.kind === 'document') {
+        const ack = this.options.acknowledged?.(result);
+        if (ack)
+          this.update((items) => rebaseDocuments(items, send.journalId, send.baseVersion, ack));
+      }
       if (this.singles > 0) this.singles -= 1;
       this.attempt = 0;
       this.lastError = null;

@@ -296,3 +296,101 @@ describe('the queue runner', () => {
     expect(server.calls).toHaveLength(1);
   });
 });
+
+describe('a journal update refused because the journal changed elsewhere (409)', () => {
+  const changed = (current: unknown) =>
+    new ApiError(409, 'JOURNAL_CHANGED', 'changed elsewhere', {}, { current });
+
+  it('is held with the server’s journal, kept across a reload, and readings still go out', async () => {
+    const storage = new Map<string, string>();
+    const store = webStorageStore(
+      {
+        getItem: (k: string) => storage.get(k) ?? null,
+        setItem: (k: string, v: string) => void storage.set(k, v),
+      } as unknown as Storage,
+      'q',
+    );
+    const sentVersions: (string | null)[] = [];
+    const readingsSent: string[] = [];
+    let refuse = true;
+    const conflicts: string[] = [];
+    const outbox = new Outbox({
+      store,
+      transport: {
+        async sendReadings(_id, readings) {
+          readingsSent.push(...readings.map((r) => r.id));
+          return {};
+        },
+        async sendDocument(_id, document, baseVersion) {
+          sentVersions.push(baseVersion);
+          if (refuse) throw changed({ version: 'v2', title: 'From the laptop' });
+          return { version: 'v3', title: document.title };
+        },
+      },
+      currentOf: (e) => (e as ApiError).details.current,
+      acknowledged: (r) => ({ version: (r as { version: string }).version, document: doc('ack') }),
+      onConflict: (send) => conflicts.push(send.kind),
+    });
+    await outbox.enqueueDocument(7, doc('vat times'), { version: 'v1', document: doc('base') });
+    await outbox.enqueueReading(7, reading(1));
+    expect(sentVersions).toEqual(['v1']);
+    expect(conflicts).toEqual(['document']);
+    expect(readingsSent).toEqual([reading(1).id]);
+    // Still there, held, with what the server said; a reload reads the same.
+    const [held] = webStorageStore(
+      { getItem: (k: string) => storage.get(k) ?? null } as unknown as Storage,
+      'q',
+    ).load();
+    expect(held).toMatchObject({
+      kind: 'document',
+      document: { title: 'vat times' },
+      base: { version: 'v1' },
+      conflict: { current: { version: 'v2', title: 'From the laptop' } },
+    });
+    // A newer vat change while held stays held, on the same base.
+    await outbox.enqueueDocument(7, doc('vat times 2'), { version: 'v9', document: doc('x') });
+    expect(sentVersions).toEqual(['v1']);
+    const [again] = store.load();
+    expect(again).toMatchObject({
+      base: { version: 'v1' },
+      conflict: { current: { version: 'v2' } },
+    });
+
+    // Merged on the page: sent on the new version, and gone from the queue once accepted.
+    refuse = false;
+    await outbox.resolveDocument(again.key, doc('merged'), { version: 'v2', document: doc('l') });
+    expect(sentVersions).toEqual(['v1', 'v2']);
+    expect(store.load()).toEqual([]);
+  });
+
+  it('rebases an update queued while the one before it was being sent', async () => {
+    let items: OutboxItem[] = [];
+    const store = { load: () => items.slice(), save: (next: OutboxItem[]) => (items = next) };
+    const versions: (string | null)[] = [];
+    let release: () => void = () => undefined;
+    const outbox = new Outbox({
+      store,
+      transport: {
+        sendReadings: async () => ({}),
+        async sendDocument(_id, document, baseVersion) {
+          versions.push(baseVersion);
+          if (document.title === 'first') await new Promise<void>((r) => (release = r));
+          return { version: `after-${document.title}` };
+        },
+      },
+      acknowledged: (r) => ({ version: (r as { version: string }).version, document: doc('ack') }),
+    });
+    const first = outbox.enqueueDocument(3, doc('first'), { version: 'v1', document: doc('b') });
+    await Promise.resolve();
+    void outbox.enqueueDocument(3, doc('second'), { version: 'v1', document: doc('b') });
+    release();
+    await first;
+    await outbox.flush();
+    expect(versions).toEqual(['v1', 'after-first']);
+  });
+
+  it('is sorted as a conflict only for JOURNAL_CHANGED', () => {
+    expect(classifyFailure(changed(null))).toBe('conflict');
+    expect(classifyFailure(new ApiError(409, 'READING_ID_TAKEN', 'x'))).toBe('rejected');
+  });
+});
