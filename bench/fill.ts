@@ -1,8 +1,11 @@
 // Fills a throwaway database with a community: members, journals and tastings with a
 // realistic spread (popular styles more common, aging from each style's typical range,
 // metric_* figures around trade values, overall liking tied loosely to salt and age).
-// Multi-row INSERTs of a few thousand rows each, checks off, on one connection.
+// Multi-row INSERTs of a few thousand rows each, checks off, on one connection; Compare's
+// facts then come from one INSERT … SELECT.
+import { drizzle } from 'drizzle-orm/mysql2';
 import type { Pool, PoolConnection } from 'mysql2/promise';
+import { rebuildCompareFacts } from '../server/repositories/compare.repository';
 import { STYLES } from '../shared/constants/styles';
 
 export type FillSize = { members: number; journals: number; tastings: number; detailed: number };
@@ -247,12 +250,7 @@ export async function fillCommunity(pool: Pool, size: FillSize): Promise<FillRes
     journalRows.forEach((row, i) => {
       const j = journals[i];
       const n = j.tastings.length;
-      row.push(
-        n,
-        n ? j.tastings.reduce((a, b) => a + b, 0) / n : null,
-        j.lastAge,
-        n ? j.tastings.reduce((a, b) => a + b * b, 0) : null,
-      );
+      row.push(n, n ? j.tastings.reduce((a, b) => a + b, 0) / n : null, j.lastAge);
     });
     await insertRows(
       conn,
@@ -292,7 +290,6 @@ export async function fillCommunity(pool: Pool, size: FillSize): Promise<FillRes
         'tasting_count',
         'mean_overall',
         'last_tasted_age_days',
-        'overall_sum_squares',
       ],
       journalRows,
     );
@@ -404,8 +401,10 @@ export async function fillCommunity(pool: Pool, size: FillSize): Promise<FillRes
       ['journal_id', 'date', 'mass_kg', 'note'],
       weighIns,
     );
+    // Compare's facts in one INSERT … SELECT over what was just loaded, as the migration does.
+    await rebuildCompareFacts(drizzle(conn));
     await conn.query('SET unique_checks = 1, foreign_key_checks = 1');
-    await conn.query('ANALYZE TABLE users, journals, tastings');
+    await conn.query('ANALYZE TABLE users, journals, tastings, compare_facts');
 
     // The probes: the busiest maker, a detailed public journal, the first style.
     const [[busy]] = (await conn.query(

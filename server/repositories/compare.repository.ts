@@ -3,23 +3,110 @@ import type { CompareOutcomeKey, CompareParameterKey } from '../../shared/consta
 import type { Database } from '../db/client';
 import type { RegressionSums } from '../../shared/trade/stats';
 
-// Column expressions for every Compare key (aliases: j journals, t tastings, s styles, u users).
+type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
+
+// --- keeping compare_facts up to date ------------------------------------------------------
+
+// The journal columns compare_facts copies as they are.
+const COPIED = [
+  'user_id',
+  'style_id',
+  'species',
+  'heat_treatment',
+  'rind_treatment',
+  'aging_target_days',
+  'drying_days',
+  'metric_salt_g_per_l',
+  'metric_salt_percent',
+  'metric_colour_ml_per_l',
+  'metric_calcium_chloride_ml_per_l',
+  'metric_culture_g_per_l',
+  'metric_coagulation_temp_c',
+  'metric_cook_temp_c',
+  'metric_cook_ramp_c_per_5min',
+  'metric_press_max_kpa',
+  'metric_yield_percent',
+  'metric_moisture_loss_percent',
+] as const;
+
+const OUTCOMES = ['overall', 'appearance', 'aroma', 'flavour', 'texture', 'finish'] as const;
+
+// The tasting sums: [column, expression over the journal's visible tastings, empty value].
+const TASTING_SUMS: [string, string, string][] = [
+  ['tasting_count', 'COUNT(*)', '0'],
+  ['first_tasted_age_days', 'MIN(age_days)', 'NULL'],
+  ['last_tasted_age_days', 'MAX(age_days)', 'NULL'],
+  ['age_sum', 'SUM(age_days)', '0'],
+  ['age_sum_squares', 'SUM(age_days * age_days)', '0'],
+  ...OUTCOMES.flatMap((o): [string, string, string][] => [
+    [`${o}_sum`, `SUM(${o})`, '0'],
+    [`${o}_sum_squares`, `SUM(${o} * ${o})`, '0'],
+    [`${o}_age_sum`, `SUM(age_days * ${o})`, '0'],
+  ]),
+];
+
+const FACT_COLUMNS = ['listed', ...COPIED, ...TASTING_SUMS.map(([c]) => c)];
+
+/**
+ * The statement that writes compare_facts from journals and tastings (the same one the
+ * migration backfilled with): `journals` narrows the journals, `tastings` the tastings read.
+ * Listed means what everyone may count: published, public and not hidden (the viewer's own
+ * count for the viewer whatever this says). Only visible tastings are summed.
+ */
+function factsInsert(journals: SQL, tastings: SQL): SQL {
+  const sums = TASTING_SUMS.map(([c, expr]) => `${expr} AS ${c}`).join(', ');
+  const picked = [
+    `j.status = 'published' AND j.visibility = 'public' AND j.hidden_at IS NULL`,
+    ...COPIED.map((c) => `j.${c}`),
+    ...TASTING_SUMS.map(([c, , empty]) => (empty === 'NULL' ? `s.${c}` : `COALESCE(s.${c}, 0)`)),
+  ].join(', ');
+  return sql`
+    INSERT INTO compare_facts (journal_id, ${sql.raw(FACT_COLUMNS.join(', '))})
+    SELECT j.id, ${sql.raw(picked)}
+    FROM journals j LEFT JOIN (
+      SELECT journal_id, ${sql.raw(sums)} FROM tastings
+      WHERE hidden_at IS NULL AND ${tastings} GROUP BY journal_id
+    ) s ON s.journal_id = j.id
+    WHERE ${journals}`;
+}
+
+/**
+ * Rewrites one journal's compare_facts row from its journal row and visible tastings. Call it
+ * in the transaction of every write that changes either (a deleted journal's row cascades).
+ * Delete and insert, since the row's place (listed, style) may change with it.
+ */
+export async function refreshCompareFacts(db: Db, journalId: number): Promise<void> {
+  await db.execute(sql`DELETE FROM compare_facts WHERE journal_id = ${journalId}`);
+  await db.execute(factsInsert(sql`j.id = ${journalId}`, sql`journal_id = ${journalId}`));
+}
+
+/** Rewrites every journal's compare_facts row (after a bulk load, or to repair), in one transaction. */
+export async function rebuildCompareFacts(db: Db): Promise<void> {
+  await db.transaction(async (tx) => {
+    await tx.execute(sql`DELETE FROM compare_facts`);
+    await tx.execute(factsInsert(sql`TRUE`, sql`TRUE`));
+  });
+}
+
+// --- reading -------------------------------------------------------------------------------
+
+// Column expressions for every Compare key (aliases: f compare_facts, t tastings, s styles).
 const JOURNAL_X: Partial<Record<CompareParameterKey, SQL>> = {
-  saltPerLitre: sql`j.metric_salt_g_per_l`,
-  saltPercent: sql`j.metric_salt_percent`,
-  colourPerLitre: sql`j.metric_colour_ml_per_l`,
-  calciumChloridePerLitre: sql`j.metric_calcium_chloride_ml_per_l`,
-  culturePerLitre: sql`j.metric_culture_g_per_l`,
-  coagulationTemp: sql`j.metric_coagulation_temp_c`,
-  cookTemp: sql`j.metric_cook_temp_c`,
-  cookRamp: sql`j.metric_cook_ramp_c_per_5min`,
-  pressMaxKpa: sql`j.metric_press_max_kpa`,
-  dryingDays: sql`j.drying_days`,
-  yieldPercent: sql`j.metric_yield_percent`,
+  saltPerLitre: sql`f.metric_salt_g_per_l`,
+  saltPercent: sql`f.metric_salt_percent`,
+  colourPerLitre: sql`f.metric_colour_ml_per_l`,
+  calciumChloridePerLitre: sql`f.metric_calcium_chloride_ml_per_l`,
+  culturePerLitre: sql`f.metric_culture_g_per_l`,
+  coagulationTemp: sql`f.metric_coagulation_temp_c`,
+  cookTemp: sql`f.metric_cook_temp_c`,
+  cookRamp: sql`f.metric_cook_ramp_c_per_5min`,
+  pressMaxKpa: sql`f.metric_press_max_kpa`,
+  dryingDays: sql`f.drying_days`,
+  yieldPercent: sql`f.metric_yield_percent`,
   style: sql`s.slug`,
-  species: sql`j.species`,
-  heatTreatment: sql`j.heat_treatment`,
-  rindTreatment: sql`j.rind_treatment`,
+  species: sql`f.species`,
+  heatTreatment: sql`f.heat_treatment`,
+  rindTreatment: sql`f.rind_treatment`,
 };
 
 const CATEGORY_KEYS = new Set<CompareParameterKey>([
@@ -29,18 +116,11 @@ const CATEGORY_KEYS = new Set<CompareParameterKey>([
   'rindTreatment',
 ]);
 
-const TASTING_Y: Partial<Record<CompareOutcomeKey, SQL>> = {
-  overall: sql`t.overall`,
-  appearance: sql`t.appearance`,
-  aroma: sql`t.aroma`,
-  flavour: sql`t.flavour`,
-  texture: sql`t.texture`,
-  finish: sql`t.finish`,
-};
+const TASTING_OUTCOMES = new Set<CompareOutcomeKey>(OUTCOMES);
 
 const JOURNAL_Y: Partial<Record<CompareOutcomeKey, SQL>> = {
-  yieldPercent: sql`j.metric_yield_percent`,
-  moistureLossPercent: sql`j.metric_moisture_loss_percent`,
+  yieldPercent: sql`f.metric_yield_percent`,
+  moistureLossPercent: sql`f.metric_moisture_loss_percent`,
 };
 
 export type CompareFilter = {
@@ -69,62 +149,108 @@ const list = (values: readonly (string | number)[]) =>
     sql`, `,
   );
 
-function conditions(f: CompareFilter): SQL {
-  // Public, published, unhidden journals count; the viewer's own count for the viewer.
-  const parts: SQL[] = [
-    f.viewerId
-      ? sql`((j.status = 'published' AND j.visibility = 'public' AND j.hidden_at IS NULL) OR j.user_id = ${f.viewerId})`
-      : sql`(j.status = 'published' AND j.visibility = 'public' AND j.hidden_at IS NULL)`,
-  ];
-  if (f.styleIds?.length) parts.push(sql`j.style_id IN (${list(f.styleIds)})`);
-  if (f.species?.length) parts.push(sql`j.species IN (${list(f.species)})`);
-  if (f.heat?.length) parts.push(sql`j.heat_treatment IN (${list(f.heat)})`);
-  if (f.rind?.length) parts.push(sql`j.rind_treatment IN (${list(f.rind)})`);
-  if (f.agingMin !== undefined) parts.push(sql`j.aging_target_days >= ${f.agingMin}`);
-  if (f.agingMax !== undefined) parts.push(sql`j.aging_target_days <= ${f.agingMax}`);
-  if (f.makerId !== undefined) parts.push(sql`j.user_id = ${f.makerId}`);
+// Whose journals count: the listed ones (published, public, not hidden) for everyone, and
+// the viewer's own for the viewer. 'listed' and 'own' split the same set in two, so each
+// half can use its own index.
+type Privacy = 'all' | 'listed' | 'own';
+
+function conditions(f: CompareFilter, privacy: Privacy = 'all'): SQL {
+  const parts: SQL[] = [];
+  if (privacy === 'own') parts.push(sql`f.user_id = ${f.viewerId ?? -1} AND f.listed = 0`);
+  else if (privacy === 'listed' || !f.viewerId) parts.push(sql`f.listed = 1`);
+  else parts.push(sql`(f.listed = 1 OR f.user_id = ${f.viewerId})`);
+  if (f.styleIds?.length) parts.push(sql`f.style_id IN (${list(f.styleIds)})`);
+  if (f.species?.length) parts.push(sql`f.species IN (${list(f.species)})`);
+  if (f.heat?.length) parts.push(sql`f.heat_treatment IN (${list(f.heat)})`);
+  if (f.rind?.length) parts.push(sql`f.rind_treatment IN (${list(f.rind)})`);
+  if (f.agingMin !== undefined) parts.push(sql`f.aging_target_days >= ${f.agingMin}`);
+  if (f.agingMax !== undefined) parts.push(sql`f.aging_target_days <= ${f.agingMax}`);
+  if (f.makerId !== undefined) parts.push(sql`f.user_id = ${f.makerId}`);
   return sql.join(parts, sql` AND `);
 }
 
-type Shape = { names: boolean };
+/**
+ * How one comparison's points are made: one per visible tasting (unit 'tasting', facts joined
+ * to tastings) or one per journal (unit 'journal', from the facts alone: the mean of the
+ * journal's visible tastings, or a journal-level outcome), with the condition for a point.
+ */
+type Shape = { unit: 'tasting' | 'journal'; x: SQL; y: SQL; present: SQL };
 
-// The SELECT of one comparison's points, without order or limit: one row per visible
-// tasting, or one per journal with the mean of its visible tastings. Without names, the
-// users join is left out (every journal has a maker, so the rows are the same) and styles is
-// joined only when a filter or x needs it.
+function shapeOf(x: CompareParameterKey, y: CompareOutcomeKey, per: 'tasting' | 'journal'): Shape {
+  const journalX = JOURNAL_X[x];
+  if (TASTING_OUTCOMES.has(y)) {
+    const o = sql.raw(y);
+    if (per === 'tasting') {
+      const xExpr = x === 'ageDays' ? sql`t.age_days` : journalX!;
+      return {
+        unit: 'tasting',
+        x: xExpr,
+        y: sql`t.${o}`,
+        present:
+          x === 'ageDays'
+            ? sql`f.tasting_count > 0`
+            : sql`f.tasting_count > 0 AND ${xExpr} IS NOT NULL`,
+      };
+    }
+    const xExpr = x === 'ageDays' ? sql`f.age_sum / f.tasting_count` : journalX!;
+    return {
+      unit: 'journal',
+      x: xExpr,
+      y: sql`f.${sql.raw(`${y}_sum`)} / f.tasting_count`,
+      present: sql`f.tasting_count > 0 AND ${xExpr} IS NOT NULL`,
+    };
+  }
+  const yExpr = JOURNAL_Y[y]!;
+  const xExpr = x === 'ageDays' ? sql`f.last_tasted_age_days` : journalX!;
+  return {
+    unit: 'journal',
+    x: xExpr,
+    y: yExpr,
+    present: sql`${xExpr} IS NOT NULL AND ${yExpr} IS NOT NULL`,
+  };
+}
+
+type PointsOptions = {
+  /** With the journal's title and maker's handle (the chart's labels); categories skip them. */
+  names: boolean;
+  /** Only the points of every step-th journal by id (the ids to try, when few enough). */
+  sample?: { step: number; ids?: number[] };
+  limit: number;
+};
+
 function pointsQuery(
   x: CompareParameterKey,
   y: CompareOutcomeKey,
   per: 'tasting' | 'journal',
   filter: CompareFilter,
-  shape: Shape,
+  opts: PointsOptions,
 ): SQL {
-  const where = conditions(filter);
-  const maker = shape.names ? sql`u.handle` : sql`NULL`;
-  const joins = sql.join(
-    [
-      shape.names ? sql`JOIN users u ON u.id = j.user_id` : sql``,
-      shape.names || x === 'style' ? sql`JOIN styles s ON s.id = j.style_id` : sql``,
-    ],
-    sql` `,
-  );
-  const tastingY = TASTING_Y[y];
-  if (tastingY) {
-    const xExpr = x === 'ageDays' ? sql`t.age_days` : JOURNAL_X[x]!;
-    return per === 'tasting'
-      ? sql`SELECT ${xExpr} AS x, ${tastingY} AS y, j.id AS journalId, j.title AS title, ${maker} AS maker, t.id AS tastingId
-              FROM tastings t JOIN journals j ON j.id = t.journal_id ${joins}
-              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}`
-      : sql`SELECT ${x === 'ageDays' ? sql`AVG(t.age_days)` : sql`MIN(${xExpr})`} AS x, AVG(${tastingY}) AS y, j.id AS journalId, MIN(j.title) AS title, MIN(${maker}) AS maker, NULL AS tastingId
-              FROM tastings t JOIN journals j ON j.id = t.journal_id ${joins}
-              WHERE t.hidden_at IS NULL AND ${xExpr} IS NOT NULL AND ${where}
-              GROUP BY j.id`;
+  const shape = shapeOf(x, y, per);
+  const where = [shape.present, conditions(filter)];
+  if (opts.sample) {
+    where.push(sql`MOD(f.journal_id, ${opts.sample.step}) = 0`);
+    if (opts.sample.ids) where.push(sql`f.journal_id IN (${list(opts.sample.ids)})`);
   }
-  const yExpr = JOURNAL_Y[y]!;
-  const xExpr = x === 'ageDays' ? sql`j.last_tasted_age_days` : JOURNAL_X[x]!;
-  return sql`SELECT ${xExpr} AS x, ${yExpr} AS y, j.id AS journalId, j.title AS title, ${maker} AS maker, NULL AS tastingId
-              FROM journals j ${joins}
-              WHERE ${xExpr} IS NOT NULL AND ${yExpr} IS NOT NULL AND ${where}`;
+  const joins = [
+    shape.unit === 'tasting'
+      ? sql`JOIN tastings t ON t.journal_id = f.journal_id AND t.hidden_at IS NULL`
+      : sql``,
+    opts.names
+      ? sql`JOIN journals j ON j.id = f.journal_id JOIN users u ON u.id = f.user_id`
+      : sql``,
+    x === 'style' ? sql`JOIN styles s ON s.id = f.style_id` : sql``,
+  ];
+  const tastingId = shape.unit === 'tasting' ? sql`t.id` : sql`NULL`;
+  // The facts first, always: the optimizer otherwise may start from users or journals and
+  // look the facts up per maker, reading far more rows than the filter matches.
+  return sql`
+    SELECT STRAIGHT_JOIN ${shape.x} AS x, ${shape.y} AS y, f.journal_id AS journalId,
+           ${opts.names ? sql`j.title` : sql`NULL`} AS title,
+           ${opts.names ? sql`u.handle` : sql`NULL`} AS maker, ${tastingId} AS tastingId
+    FROM compare_facts f ${sql.join(joins, sql` `)}
+    WHERE ${sql.join(where, sql` AND `)}
+    ORDER BY f.journal_id${shape.unit === 'tasting' ? sql`, t.id` : sql``}
+    LIMIT ${opts.limit}`;
 }
 
 const toRow = (x: CompareParameterKey) => (r: CompareRow) => ({
@@ -137,123 +263,155 @@ const toRow = (x: CompareParameterKey) => (r: CompareRow) => ({
 });
 
 /**
- * The points of one comparison, filtered and (per journal) aggregated in SQL: one row per
- * visible tasting, or one per journal with the mean of its visible tastings.
+ * The points of one comparison in journal and tasting order, at most `limit`: one per visible
+ * tasting, or one per journal with the mean of its visible tastings. Without names, title and
+ * maker are null (the categories need only x and y).
  */
 export async function comparePoints(
-  db: Database,
+  db: Db,
   x: CompareParameterKey,
   y: CompareOutcomeKey,
   per: 'tasting' | 'journal',
   filter: CompareFilter,
+  { names = true, limit = 200_000 }: { names?: boolean; limit?: number } = {},
 ): Promise<CompareRow[]> {
-  const inner = pointsQuery(x, y, per, filter, { names: true });
-  const [rows] = await db.execute(
-    sql`SELECT * FROM (${inner}) q ORDER BY q.journalId, q.tastingId LIMIT 200000`,
-  );
+  const [rows] = await db.execute(pointsQuery(x, y, per, filter, { names, limit }));
   return (rows as unknown as CompareRow[]).map(toRow(x));
 }
 
-/** The count and sums of a numeric comparison over every point, added up in SQL. */
+/** RegressionSums with the span of journal ids that have points (for the chart sample). */
+export type CompareSums = RegressionSums & {
+  /** How many journals have points, and the first and last of their ids. */
+  journals: number;
+  firstJournalId: number;
+  lastJournalId: number;
+};
+
+// The sums' SELECT list over the facts. Per tasting, each journal's tastings are added up
+// already: n = Σ count, Σx = Σ x·count, Σxy = Σ x·Σy and so on; per journal, the usual sums
+// over one point per row.
+function sumsSelect(x: CompareParameterKey, y: CompareOutcomeKey, per: 'tasting' | 'journal') {
+  const shape = shapeOf(x, y, per);
+  const ids = sql`COUNT(*) AS journals, MIN(f.journal_id) AS firstJournalId, MAX(f.journal_id) AS lastJournalId`;
+  if (shape.unit === 'journal') {
+    const { x: X, y: Y } = shape;
+    return sql`COUNT(*) AS n, SUM(${X}) AS sumX, SUM(${Y}) AS sumY, SUM(${X} * ${X}) AS sumXX,
+      SUM(${X} * ${Y}) AS sumXY, SUM(${Y} * ${Y}) AS sumYY, MIN(${X}) AS minX, MAX(${X}) AS maxX, ${ids}`;
+  }
+  const c = sql`f.tasting_count`;
+  const sy = sql.raw(`f.${y}_sum`);
+  const syy = sql.raw(`f.${y}_sum_squares`);
+  if (x === 'ageDays') {
+    return sql`SUM(${c}) AS n, SUM(f.age_sum) AS sumX, SUM(${sy}) AS sumY,
+      SUM(f.age_sum_squares) AS sumXX, SUM(${sql.raw(`f.${y}_age_sum`)}) AS sumXY,
+      SUM(${syy}) AS sumYY, MIN(f.first_tasted_age_days) AS minX,
+      MAX(f.last_tasted_age_days) AS maxX, ${ids}`;
+  }
+  const X = shape.x;
+  return sql`SUM(${c}) AS n, SUM(${X} * ${c}) AS sumX, SUM(${sy}) AS sumY,
+    SUM(${X} * ${X} * ${c}) AS sumXX, SUM(${X} * ${sy}) AS sumXY, SUM(${syy}) AS sumYY,
+    MIN(${X}) AS minX, MAX(${X}) AS maxX, ${ids}`;
+}
+
+const EMPTY: CompareSums = {
+  n: 0,
+  sumX: 0,
+  sumY: 0,
+  sumXX: 0,
+  sumXY: 0,
+  sumYY: 0,
+  minX: 0,
+  maxX: 0,
+  journals: 0,
+  firstJournalId: 0,
+  lastJournalId: 0,
+};
+
+function addSums(a: CompareSums, b: CompareSums): CompareSums {
+  if (!a.n) return b;
+  if (!b.n) return a;
+  return {
+    n: a.n + b.n,
+    sumX: a.sumX + b.sumX,
+    sumY: a.sumY + b.sumY,
+    sumXX: a.sumXX + b.sumXX,
+    sumXY: a.sumXY + b.sumXY,
+    sumYY: a.sumYY + b.sumYY,
+    minX: Math.min(a.minX, b.minX),
+    maxX: Math.max(a.maxX, b.maxX),
+    journals: a.journals + b.journals,
+    firstJournalId: Math.min(a.firstJournalId, b.firstJournalId),
+    lastJournalId: Math.max(a.lastJournalId, b.lastJournalId),
+  };
+}
+
+/**
+ * The count and sums of a numeric comparison over every point, added up from compare_facts
+ * (one row per journal, never the tastings). For a signed-in viewer, the listed journals and
+ * the viewer's own unlisted ones are added up apart (each half reads its own index).
+ */
 export async function compareSums(
-  db: Database,
+  db: Db,
   x: CompareParameterKey,
   y: CompareOutcomeKey,
   per: 'tasting' | 'journal',
   filter: CompareFilter,
-): Promise<RegressionSums> {
-  const inner = pointsQuery(x, y, per, filter, { names: false });
-  const [rows] = await db.execute(sql`
-    SELECT COUNT(*) AS n, SUM(q.x) AS sumX, SUM(q.y) AS sumY, SUM(q.x * q.x) AS sumXX,
-           SUM(q.x * q.y) AS sumXY, SUM(q.y * q.y) AS sumYY, MIN(q.x) AS minX, MAX(q.x) AS maxX
-    FROM (${inner}) q`);
-  const [r] = rows as unknown as Record<keyof RegressionSums, number | string | null>[];
-  const num = (v: number | string | null) => Number(v ?? 0);
-  return {
-    n: num(r.n),
-    sumX: num(r.sumX),
-    sumY: num(r.sumY),
-    sumXX: num(r.sumXX),
-    sumXY: num(r.sumXY),
-    sumYY: num(r.sumYY),
-    minX: num(r.minX),
-    maxX: num(r.maxX),
-  };
+): Promise<CompareSums> {
+  const shape = shapeOf(x, y, per);
+  const halves: Privacy[] = filter.viewerId ? ['listed', 'own'] : ['listed'];
+  let total = EMPTY;
+  for (const half of halves) {
+    const [rows] = await db.execute(sql`
+      SELECT ${sumsSelect(x, y, per)} FROM compare_facts f
+      WHERE ${shape.present} AND ${conditions(filter, half)}`);
+    const [r] = rows as unknown as Record<keyof CompareSums, number | string | null>[];
+    const num = (v: number | string | null) => Number(v ?? 0);
+    total = addSums(total, {
+      n: num(r.n),
+      sumX: num(r.sumX),
+      sumY: num(r.sumY),
+      sumXX: num(r.sumXX),
+      sumXY: num(r.sumXY),
+      sumYY: num(r.sumYY),
+      minX: num(r.minX),
+      maxX: num(r.maxX),
+      journals: num(r.journals),
+      firstJournalId: num(r.firstJournalId),
+      lastJournalId: num(r.lastJournalId),
+    });
+  }
+  return total;
 }
+
+/** Beyond this many candidate ids, the sample scans the matching facts instead. */
+const MAX_SAMPLE_IDS = 4000;
 
 /**
  * At most about `limit` of a comparison's points for the chart, spread over the whole set:
  * the points of every step-th journal by id, step = ⌈n / limit⌉ (a whole journal's tastings
- * together, and the journals picked before any tasting is read).
+ * together). When the multiples of step between the first and last journal with points are
+ * few, only those journals are looked up by id; with a style filter (its rows are one range
+ * of the table) they are looked up only if far fewer than the style's journals, since a
+ * look-up costs several rows of a scan.
  */
 export async function compareSample(
-  db: Database,
+  db: Db,
   x: CompareParameterKey,
   y: CompareOutcomeKey,
   per: 'tasting' | 'journal',
   filter: CompareFilter,
-  n: number,
+  sums: Pick<CompareSums, 'n' | 'journals' | 'firstJournalId' | 'lastJournalId'>,
   limit: number,
-  { ordered = true }: { ordered?: boolean } = {},
 ): Promise<CompareRow[]> {
-  const step = Math.max(1, Math.ceil(n / limit));
-  const inner = pointsQuery(x, y, per, filter, { names: true });
-  // Unordered, the server stops after `limit` rows instead of sorting every point first.
-  const [rows] = await db.execute(sql`
-    SELECT * FROM (${inner}) q
-    WHERE MOD(q.journalId, ${step}) = 0
-    ${ordered ? sql`ORDER BY q.journalId, q.tastingId` : sql``} LIMIT ${limit}`);
-  const result = (rows as unknown as CompareRow[]).map(toRow(x));
-  if (!ordered) {
-    result.sort((a, b) => a.journalId - b.journalId || (a.tastingId ?? 0) - (b.tastingId ?? 0));
-  }
-  return result;
+  if (!sums.n) return [];
+  const step = Math.max(1, Math.ceil(sums.n / limit));
+  const from = Math.ceil(sums.firstJournalId / step) * step;
+  const count = Math.max(0, Math.floor((sums.lastJournalId - from) / step) + 1);
+  if (!count) return [];
+  const lookUp = count <= MAX_SAMPLE_IDS && !(filter.styleIds?.length && count * 8 > sums.journals);
+  const ids = lookUp ? Array.from({ length: count }, (_, i) => from + i * step) : undefined;
+  const [rows] = await db.execute(
+    pointsQuery(x, y, per, filter, { names: true, sample: { step, ids }, limit }),
+  );
+  return (rows as unknown as CompareRow[]).map(toRow(x));
 }
-
-/**
- * The same sums as compareSums for overall liking per tasting against a make parameter, from
- * the per-journal figures the tastings service keeps (count, mean and Σ overall² of the
- * visible tastings): one pass over journals instead of over every tasting.
- */
-export async function compareOverallSumsFromJournals(
-  db: Database,
-  x: CompareParameterKey,
-  filter: CompareFilter,
-): Promise<RegressionSums> {
-  const xExpr = JOURNAL_X[x]!;
-  const where = conditions(filter);
-  const [rows] = await db.execute(sql`
-    SELECT SUM(j.tasting_count) AS n,
-           SUM(${xExpr} * j.tasting_count) AS sumX,
-           SUM(j.mean_overall * j.tasting_count) AS sumY,
-           SUM(${xExpr} * ${xExpr} * j.tasting_count) AS sumXX,
-           SUM(${xExpr} * j.mean_overall * j.tasting_count) AS sumXY,
-           SUM(j.overall_sum_squares) AS sumYY,
-           MIN(${xExpr}) AS minX, MAX(${xExpr}) AS maxX
-    FROM journals j ${x === 'style' ? sql`JOIN styles s ON s.id = j.style_id` : sql``}
-    WHERE j.tasting_count > 0 AND ${xExpr} IS NOT NULL AND ${where}`);
-  const [r] = rows as unknown as Record<keyof RegressionSums, number | string | null>[];
-  const num = (v: number | string | null) => Number(v ?? 0);
-  return {
-    n: num(r.n),
-    sumX: num(r.sumX),
-    sumY: num(r.sumY),
-    sumXX: num(r.sumXX),
-    sumXY: num(r.sumXY),
-    sumYY: num(r.sumYY),
-    minX: num(r.minX),
-    maxX: num(r.maxX),
-  };
-}
-
-/** Whether compareOverallSumsFromJournals answers this comparison. */
-export const overallSumsApply = (
-  x: CompareParameterKey,
-  y: CompareOutcomeKey,
-  per: 'tasting' | 'journal',
-) =>
-  y === 'overall' &&
-  per === 'tasting' &&
-  x !== 'ageDays' &&
-  !CATEGORY_KEYS.has(x) &&
-  !!JOURNAL_X[x];

@@ -17,6 +17,7 @@ import type {
   RindTreatment,
   Species,
 } from '../../shared/constants/journal';
+import { refreshCompareFacts } from './compare.repository';
 
 /** The pool or an open transaction: every function here runs on either. */
 export type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
@@ -107,19 +108,25 @@ export async function lockJournal(db: Db, id: number): Promise<void> {
   await db.select({ id: journals.id }).from(journals).where(eq(journals.id, id)).for('update');
 }
 
-/** Inserts a journal row; resolves with its id. */
+/** Inserts a journal row (and its Compare facts, in one transaction); resolves with its id. */
 export async function insertJournal(db: Db, row: NewJournalRow): Promise<number> {
-  const [result] = await db.insert(journals).values(row).$returningId();
-  return result.id;
+  return db.transaction(async (tx) => {
+    const [result] = await tx.insert(journals).values(row).$returningId();
+    await refreshCompareFacts(tx, result.id);
+    return result.id;
+  });
 }
 
-/** Updates some columns of a journal. */
+/** Updates some columns of a journal (and its Compare facts, in one transaction). */
 export async function updateJournal(
   db: Db,
   id: number,
   set: Partial<NewJournalRow>,
 ): Promise<void> {
-  await db.update(journals).set(set).where(eq(journals.id, id));
+  await db.transaction(async (tx) => {
+    await tx.update(journals).set(set).where(eq(journals.id, id));
+    await refreshCompareFacts(tx, id);
+  });
 }
 
 /** Deletes a journal; its child rows and photo rows cascade. */

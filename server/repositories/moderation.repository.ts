@@ -10,7 +10,9 @@ import {
   tastings,
   users,
 } from '../db/schema';
+import { refreshCompareFacts } from './compare.repository';
 import type { Db } from './journals.repository';
+import { updateTasting } from './tastings.repository';
 
 export type ReportRow = typeof reports.$inferSelect;
 export type NewReportRow = typeof reports.$inferInsert;
@@ -142,12 +144,14 @@ export async function setTargetHidden(
   switch (type) {
     case 'journal':
       await db.update(journals).set({ hiddenAt }).where(eq(journals.id, id));
+      await refreshCompareFacts(db, id);
       return;
     case 'photo':
       await db.update(journalPhotos).set({ hiddenAt }).where(eq(journalPhotos.id, id));
       return;
     case 'tasting':
-      await db.update(tastings).set({ hiddenAt }).where(eq(tastings.id, id));
+      // With the journal's tasting figures and Compare's facts, in the caller's transaction.
+      await updateTasting(db, id, { hiddenAt });
       return;
     case 'comment':
       await db.update(comments).set({ hiddenAt }).where(eq(comments.id, id));

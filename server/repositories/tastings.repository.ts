@@ -1,7 +1,10 @@
-import { and, asc, eq, gt, isNull, sql } from 'drizzle-orm';
+import { and, asc, eq, gt, isNull, ne, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
 import { journals, users } from '../db/schema';
 import { tastingInvites, tastings } from '../db/schema/tastings';
+import { refreshCompareFacts } from './compare.repository';
+
+type Db = Database | Parameters<Parameters<Database['transaction']>[0]>[0];
 
 export type TastingRow = typeof tastings.$inferSelect;
 export type NewTastingRow = typeof tastings.$inferInsert;
@@ -39,51 +42,101 @@ export async function findTasting(db: Database, id: number) {
   return row;
 }
 
-/** Inserts a tasting; resolves with its id. */
-export async function insertTasting(db: Database, row: NewTastingRow): Promise<number> {
-  const [result] = await db.insert(tastings).values(row).$returningId();
-  return result.id;
+// Every tasting write runs in one transaction with the journal's figures it changes (tasting
+// stats, Compare's facts), the journal row locked first so two writes to one journal's
+// tastings run in turn instead of deadlocking on each other's rows.
+async function lockJournalRow(db: Db, journalId: number): Promise<void> {
+  await db
+    .select({ id: journals.id })
+    .from(journals)
+    .where(eq(journals.id, journalId))
+    .for('update');
 }
 
-/** Updates some columns of a tasting. */
+async function journalOfTasting(db: Db, id: number): Promise<number | undefined> {
+  const [row] = await db
+    .select({ journalId: tastings.journalId })
+    .from(tastings)
+    .where(eq(tastings.id, id))
+    .limit(1);
+  return row?.journalId;
+}
+
+/** Inserts a tasting and refreshes its journal's figures; resolves with its id. */
+export async function insertTasting(db: Db, row: NewTastingRow): Promise<number> {
+  return db.transaction(async (tx) => {
+    await lockJournalRow(tx, row.journalId);
+    const [result] = await tx.insert(tastings).values(row).$returningId();
+    await refreshJournalTastingStats(tx, row.journalId);
+    return result.id;
+  });
+}
+
+/** Updates some columns of a tasting (hiding it too) and refreshes its journal's figures. */
 export async function updateTasting(
-  db: Database,
+  db: Db,
   id: number,
   set: Partial<NewTastingRow>,
 ): Promise<void> {
-  await db.update(tastings).set(set).where(eq(tastings.id, id));
+  await db.transaction(async (tx) => {
+    const journalId = await journalOfTasting(tx, id);
+    if (journalId === undefined) return;
+    await lockJournalRow(tx, journalId);
+    await tx.update(tastings).set(set).where(eq(tastings.id, id));
+    await refreshJournalTastingStats(tx, journalId);
+  });
 }
 
-/** Deletes a tasting. */
-export async function deleteTasting(db: Database, id: number): Promise<void> {
-  await db.delete(tastings).where(eq(tastings.id, id));
+/** Deletes a tasting and refreshes its journal's figures. */
+export async function deleteTasting(db: Db, id: number): Promise<void> {
+  await db.transaction(async (tx) => {
+    const journalId = await journalOfTasting(tx, id);
+    if (journalId === undefined) return;
+    await lockJournalRow(tx, journalId);
+    await tx.delete(tastings).where(eq(tastings.id, id));
+    await refreshJournalTastingStats(tx, journalId);
+  });
 }
 
 /**
- * Recomputes a journal's tasting count, mean overall liking, Σ overall² and latest tasted age
- * from its visible tastings, in one statement, so Discover can filter and sort on them and
- * Compare can add up overall liking per journal instead of per tasting.
+ * Recomputes a journal's tasting count, mean overall liking and latest tasted age from its
+ * visible tastings, in one statement, so Discover can filter and sort on them; then
+ * Compare's facts for the journal.
  */
-export async function refreshJournalTastingStats(db: Database, journalId: number): Promise<void> {
+export async function refreshJournalTastingStats(db: Db, journalId: number): Promise<void> {
   await db.execute(sql`
     UPDATE journals j
     LEFT JOIN (
       SELECT journal_id, COUNT(*) AS n, SUM(overall) / CAST(COUNT(*) AS DOUBLE) AS mean_overall,
-             MAX(age_days) AS last_age,
-             SUM(overall * overall) AS ssq
+             MAX(age_days) AS last_age
       FROM tastings WHERE journal_id = ${journalId} AND hidden_at IS NULL GROUP BY journal_id
     ) s ON s.journal_id = j.id
-    SET j.tasting_count = COALESCE(s.n, 0), j.mean_overall = s.mean_overall, j.last_tasted_age_days = s.last_age,
-        j.overall_sum_squares = s.ssq
+    SET j.tasting_count = COALESCE(s.n, 0), j.mean_overall = s.mean_overall, j.last_tasted_age_days = s.last_age
     WHERE j.id = ${journalId}`);
+  await refreshCompareFacts(db, journalId);
+}
+
+/**
+ * The journals other than the member's own that the member has tasted: their figures change
+ * when the member's account (and so the tastings) goes.
+ */
+export async function journalIdsTastedBy(db: Db, userId: number): Promise<number[]> {
+  const rows = await db
+    .selectDistinct({ id: tastings.journalId })
+    .from(tastings)
+    .innerJoin(journals, eq(journals.id, tastings.journalId))
+    .where(and(eq(tastings.tasterId, userId), ne(journals.userId, userId)))
+    .orderBy(asc(tastings.journalId));
+  return rows.map((r) => r.id);
 }
 
 /** Recomputes every tasting's age for a journal after its make date changed. */
-export async function refreshTastingAges(db: Database, journalId: number): Promise<void> {
+export async function refreshTastingAges(db: Db, journalId: number): Promise<void> {
   await db.execute(sql`
     UPDATE tastings t JOIN journals j ON j.id = t.journal_id
     SET t.age_days = DATEDIFF(t.tasted_on, j.make_date)
     WHERE t.journal_id = ${journalId}`);
+  await refreshJournalTastingStats(db, journalId);
 }
 
 /** Stores a tasting invite (only the code's hash). */

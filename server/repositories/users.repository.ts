@@ -1,6 +1,7 @@
-import { and, count, desc, eq, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, count, desc, eq, inArray, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { users } from '../db/schema';
+import { journals, users } from '../db/schema';
+import { journalIdsTastedBy, refreshJournalTastingStats } from './tastings.repository';
 
 export type UserRow = typeof users.$inferSelect;
 export type NewUserRow = typeof users.$inferInsert;
@@ -38,9 +39,24 @@ export async function updateUser(
   await db.update(users).set(set).where(eq(users.id, id));
 }
 
-/** Deletes a user (tokens cascade). */
+/**
+ * Deletes a user (tokens, journals and tastings cascade); the other makers' journals the user
+ * had tasted get their tasting figures and Compare's facts refreshed in the same transaction.
+ */
 export async function deleteUser(db: Database, id: number): Promise<void> {
-  await db.delete(users).where(eq(users.id, id));
+  await db.transaction(async (tx) => {
+    const tasted = await journalIdsTastedBy(tx, id);
+    if (tasted.length) {
+      await tx
+        .select({ id: journals.id })
+        .from(journals)
+        .where(inArray(journals.id, tasted))
+        .orderBy(journals.id)
+        .for('update');
+    }
+    await tx.delete(users).where(eq(users.id, id));
+    for (const journalId of tasted) await refreshJournalTastingStats(tx, journalId);
+  });
 }
 
 /** A page of users, newest first, optionally filtered by e-mail, handle or name. */

@@ -13,9 +13,7 @@ import type { AuthMember } from '../middleware/authenticate';
 import {
   comparePoints,
   compareSample,
-  compareOverallSumsFromJournals,
   compareSums,
-  overallSumsApply,
   type CompareFilter,
 } from '../repositories/compare.repository';
 import { findJournalById, findStyleIdsBySlugs } from '../repositories/journals.repository';
@@ -44,7 +42,8 @@ function cautionFor(n: number, reason: string | null): string | null {
  * Relates a make parameter to an outcome over the public journals (and the viewer's own):
  * points, the fitted line with its slope's 95 % interval, r and n for a numeric parameter;
  * n, mean, median and quartiles per group for a category. Filtering and aggregation happen in
- * SQL; the statistics come from shared/trade.
+ * SQL over compare_facts (one narrow row per journal with its tastings' sums); the statistics
+ * come from shared/trade.
  */
 export async function compare(
   ctx: AppContext,
@@ -80,7 +79,7 @@ async function computeCompare(
   const outcomeIsJournalLevel = q.y === 'yieldPercent' || q.y === 'moistureLossPercent';
   const per = outcomeIsJournalLevel ? 'journal' : q.per;
   if (parameter.kind === 'category') {
-    const rows = await comparePoints(db, q.x, q.y, per, filter);
+    const rows = await comparePoints(db, q.x, q.y, per, filter, { names: false });
     const base = { x: q.x, y: q.y, per, n: rows.length } as const;
     const labels = CATEGORY_LABELS[q.x] ?? {};
     const groups = rows.length
@@ -112,27 +111,27 @@ async function computeCompare(
     };
   }
 
-  // A first page of points: when that is all of them, the fit comes from the points
-  // themselves; when there are more, from sums added up in SQL, with a spread-out sample of
-  // points for the chart (a few hundred thousand points would be megabytes of JSON).
-  const first = await compareSample(db, q.x, q.y, per, filter, 0, MAX_CHART_POINTS + 1, {
-    ordered: false,
-  });
-  let points = first.map((r) => ({ ...r, x: Number(r.x) }));
+  // The sums over every point come from the per-journal facts. When the points are few
+  // enough for the chart, the fit comes from the points themselves; otherwise from the sums,
+  // with a spread-out sample of points for the chart (a few hundred thousand points would be
+  // megabytes of JSON).
+  const sums = await compareSums(db, q.x, q.y, per, filter);
+  let points;
   let regression;
-  if (points.length <= MAX_CHART_POINTS) {
+  if (sums.n <= MAX_CHART_POINTS) {
+    points = (await comparePoints(db, q.x, q.y, per, filter, { limit: MAX_CHART_POINTS })).map(
+      (r) => ({ ...r, x: Number(r.x) }),
+    );
     regression = linearRegression(
       points.map((p) => p.x),
       points.map((p) => p.y),
     );
   } else {
-    const sums = overallSumsApply(q.x, q.y, per)
-      ? await compareOverallSumsFromJournals(db, q.x, filter)
-      : await compareSums(db, q.x, q.y, per, filter);
     regression = linearRegressionFromSums(sums);
-    points = (await compareSample(db, q.x, q.y, per, filter, sums.n, MAX_CHART_POINTS)).map(
-      (r) => ({ ...r, x: Number(r.x) }),
-    );
+    points = (await compareSample(db, q.x, q.y, per, filter, sums, MAX_CHART_POINTS)).map((r) => ({
+      ...r,
+      x: Number(r.x),
+    }));
   }
   const base = { x: q.x, y: q.y, per, n: regression.n } as const;
   const fit = regression.fit;

@@ -2,6 +2,7 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { COMPARE_PARAMETER_KEYS } from '../../shared/constants/compare';
 import { tastings } from '../../server/db/schema/tastings';
+import { refreshJournalTastingStats } from '../../server/repositories/tastings.repository';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { createMember, signedIn } from '../support/factories';
 import { postJournal, publicJournalDocument } from '../support/journal-factory';
@@ -29,6 +30,8 @@ async function addTasting(journalId: number, tasterId: number, overall: number, 
     defects: [],
     notes: '',
   });
+  // As the tastings service does after every tasting it writes.
+  await refreshJournalTastingStats(t.ctx.database.db, journalId);
 }
 
 // Anscombe's quartet: F. J. Anscombe, "Graphs in Statistical Analysis", The American

@@ -4,6 +4,7 @@ import { comments, follows } from '../../server/db/schema/community';
 import { journalPhotos, tastings } from '../../server/db/schema';
 import { createTestApp, visitor, type TestApp, type Visitor } from '../support/app';
 import { signedIn, type createMember } from '../support/factories';
+import { refreshJournalTastingStats } from '../../server/repositories/tastings.repository';
 import { insertJournalRow } from '../support/journal-rows';
 
 // The private-data matrix: a maker with one thing of each kind that nobody else may list
@@ -44,6 +45,7 @@ async function tastingOn(journalId: number, tasterId: number, over: Record<strin
       ...over,
     })
     .$returningId();
+  await refreshJournalTastingStats(t.ctx.database.db, journalId);
   return row.id;
 }
 

@@ -1,4 +1,4 @@
-import { mkdtempSync, readdirSync, rmSync } from 'node:fs';
+import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { sql } from 'drizzle-orm';
@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { migrateDatabase } from '../../server/db/migrate';
 import { seedDemo } from '../../server/db/seed';
 import { createTestApp, type TestApp } from '../support/app';
+import { expectFactsUpToDate } from '../support/compare-facts';
 
 // The demo scenario seeded into its own empty database, as the first `npm start` does.
 describe('demo seed', () => {
@@ -17,7 +18,14 @@ describe('demo seed', () => {
     t = await createTestApp({ DATABASE_URL: process.env.SEED_DATABASE_URL!, UPLOADS_DIR: uploads });
     await migrateDatabase(t.ctx.database.db);
     await t.ctx.database.db.execute(sql`SET FOREIGN_KEY_CHECKS = 0`);
-    for (const table of ['tastings', 'journal_photos', 'journal_readings', 'journals', 'users']) {
+    for (const table of [
+      'compare_facts',
+      'tastings',
+      'journal_photos',
+      'journal_readings',
+      'journals',
+      'users',
+    ]) {
       await t.ctx.database.db.execute(sql.raw(`DELETE FROM ${table}`));
     }
     await t.ctx.database.db.execute(sql`SET FOREIGN_KEY_CHECKS = 1`);
@@ -73,4 +81,24 @@ describe('demo seed', () => {
     // A second run refuses to touch a database that has members.
     expect(await seedDemo(t.ctx)).toEqual([]);
   }, 180_000);
+
+  it("keeps Compare's facts equal to a from-scratch computation, and so does the migration's backfill", async () => {
+    // Written as the seed went, through the services and repositories.
+    expect(await expectFactsUpToDate(t.ctx)).toBeGreaterThanOrEqual(24);
+    const before = await supertest(t.app).get('/api/compare?x=ageDays&y=flavour').expect(200);
+    // The backfill statement of the migration that made the table, run on the seeded rows.
+    const migration = readFileSync(
+      new URL('../../migrations/0009_compare_facts.sql', import.meta.url),
+      'utf8',
+    );
+    const backfill = migration
+      .split('--> statement-breakpoint')
+      .map((s) => s.trim())
+      .find((s) => s.startsWith('INSERT INTO `compare_facts`'))!;
+    await t.ctx.database.db.execute(sql`DELETE FROM compare_facts`);
+    await t.ctx.database.db.execute(sql.raw(backfill));
+    expect(await expectFactsUpToDate(t.ctx)).toBeGreaterThanOrEqual(24);
+    const after = await supertest(t.app).get('/api/compare?x=ageDays&y=flavour').expect(200);
+    expect(after.body).toEqual(before.body);
+  });
 });

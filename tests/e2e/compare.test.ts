@@ -4,6 +4,7 @@ import { tastings } from '../../server/db/schema/tastings';
 import { SCREENSHOT_DIR, startE2E, type E2E } from '../support/browser';
 import { createMember } from '../support/factories';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
+import { refreshJournalTastingStats } from '../../server/repositories/tastings.repository';
 
 const DESKTOP = { width: 1280, height: 900 };
 const PHONE = { width: 390, height: 844 };
@@ -65,6 +66,7 @@ describe('Compare in Chromium', () => {
         defects: [],
         notes: '',
       });
+      await refreshJournalTastingStats(e.t.ctx.database.db, id);
     }
   });
   afterAll(() => e?.close());

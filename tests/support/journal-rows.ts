@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import type { AppContext } from '../../server/context';
 import { journals, styles } from '../../server/db/schema';
+import { refreshCompareFacts } from '../../server/repositories/compare.repository';
 
 type JournalOverrides = Partial<typeof journals.$inferInsert>;
 
@@ -10,7 +11,8 @@ export const daysAgo = (days: number) =>
 
 /**
  * Inserts a bare journal row straight into the database (a published public cheddar by
- * default), for tests of features that only need a journal to exist.
+ * default), for tests of features that only need a journal to exist. Its Compare facts are
+ * written as the journals repository would.
  */
 export async function insertJournalRow(
   ctx: AppContext,
@@ -40,5 +42,6 @@ export async function insertJournalRow(
       ...overrides,
     })
     .$returningId();
+  await refreshCompareFacts(ctx.database.db, row.id);
   return row.id;
 }

@@ -5,3 +5,4 @@ export * from './auth';
 export * from './journals';
 export * from './tastings';
 export * from './community';
+export * from './compare';

@@ -87,8 +87,6 @@ export const journals = mysqlTable(
     metricMoistureLossPercent: double('metric_moisture_loss_percent'),
     tastingCount: int('tasting_count').notNull().default(0),
     meanOverall: double('mean_overall'),
-    /** Σ overall² over the visible tastings: with count and mean, Compare's sums per journal. */
-    overallSumSquares: double('overall_sum_squares'),
     lastTastedAgeDays: int('last_tasted_age_days'),
     publishedAt: datetime('published_at', { mode: 'date' }),
     createdAt: createdAt(),
