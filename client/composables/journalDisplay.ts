@@ -26,9 +26,12 @@ export function formatDate(iso: string | null | undefined): string {
   });
 }
 
-/** A time of day for "Saved at 10:42", in the browser's zone. */
-export function formatClock(at: Date): string {
-  return at.toLocaleTimeString([], { hour: '2-digit', minute: '2-digit' });
+/**
+ * A time of day for "Saved at 10:42", in the browser's zone and clock (13:05 or 1:05 PM, as
+ * the device is set; the same as At the vat's times).
+ */
+export function formatClock(at: Date | string): string {
+  return new Date(at).toLocaleTimeString(undefined, { hour: 'numeric', minute: '2-digit' });
 }
 
 /** A mean score on the 1–9 scale with one decimal, or a dash when nobody has scored it. */
