@@ -54,9 +54,20 @@ describe('the first journal journey in Chromium', () => {
     // The batch and the milk.
     await page.getByLabel('Title').fill(title);
     await page.getByLabel('Style', { exact: true }).selectOption('alpine');
-    await page.getByLabel('Milk volume (L)').fill('12');
+    // A unit typed after the number is not quietly dropped: the text stays, with the reason.
+    const volume = page.getByLabel('Milk volume (L)');
+    await volume.fill('12 gal');
+    await volume.blur();
+    await page.getByText('Type the number only: this field is in L').waitFor();
+    expect(await volume.inputValue()).toBe('12 gal');
+    await e.screenshot(page, 'editor-number-with-unit-phone');
+    await volume.fill('12');
     await page.getByLabel('Heat treatment').selectOption('pasteurised');
-    await page.getByLabel('Fat (%), if known').fill('3.9');
+    // A decimal comma counts as a decimal sign; the box keeps what was typed.
+    const fat = page.getByLabel('Fat (%), if known');
+    await fat.fill('3,9');
+    await fat.blur();
+    expect(await fat.inputValue()).toBe('3,9');
     await page.getByLabel('Protein (%), if known').fill('3.3');
 
     // Saving with a missing ingredient name is refused next to the field, by the shared schema.
@@ -152,6 +163,8 @@ describe('the first journal journey in Chromium', () => {
     await page.getByRole('dialog').getByRole('button', { name: 'Publish', exact: true }).click();
     await page.waitForURL(new RegExp(`/journals/${journalId}$`));
     await page.getByRole('heading', { name: title, level: 1 }).waitFor();
+    // "3,9" was stored as 3.9.
+    await page.getByText('3.9 %').first().waitFor();
     expect(problems).toEqual([]);
 
     // A signed-out reader on a desktop: filter Discover by style and aging time.
