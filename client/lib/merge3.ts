@@ -145,6 +145,16 @@ export function describePath(path: string): string {
 /** A value as a short line for the comparison ("—" for nothing). */
 export function describeValue(value: unknown): string {
   if (value === null || value === undefined || value === '') return '—';
+  if (typeof value === 'string' && /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/.test(value)) {
+    const at = new Date(value);
+    if (!Number.isNaN(at.getTime()))
+      return at.toLocaleString(undefined, {
+        day: 'numeric',
+        month: 'short',
+        hour: '2-digit',
+        minute: '2-digit',
+      });
+  }
   if (typeof value === 'string') return value.length > 80 ? `${value.slice(0, 79)}…` : value;
   if (typeof value === 'number' || typeof value === 'boolean') return String(value);
   const text = JSON.stringify(value, (k, v) => (k === 'key' ? undefined : v));

@@ -4,8 +4,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { JournalDto } from '../../shared/types/journal';
 import { toNewtons } from '../../shared/trade/units';
 import { SCREENSHOT_DIR, startE2E, type E2E } from '../support/browser';
+import { documentFromDto } from '../../client/lib/vat/document';
+import { visitor } from '../support/app';
 import { createMember } from '../support/factories';
-import { journalDocument } from '../support/journal-factory';
+import { journalDocument, putJournal } from '../support/journal-factory';
 
 const PHONE = { width: 390, height: 844 };
 
@@ -169,6 +171,68 @@ describe('At the vat in Chromium, on a phone', () => {
     expect(again.readings).toHaveLength(4);
 
     expect(problems.filter((p) => !p.includes('ERR_INTERNET_DISCONNECTED'))).toEqual([]);
+    await page.close();
+  });
+
+  it('keeps the vat times when the journal was saved elsewhere meanwhile (409)', async () => {
+    const maker = await createMember(e.t.ctx, { units: 'us' });
+    const { page, problems } = await e.newPage(PHONE);
+    await signIn(page, maker.email, maker.password);
+    const journal = await api<JournalDto>(page, 'POST', '/api/journals', makeDayDocument());
+    // The same maker on the laptop, signed in on their own.
+    const laptop = visitor(e.t.app);
+    await laptop.post('/api/auth/signin', { email: maker.email, password: maker.password });
+    laptop.resetCsrf();
+    const isPut =
+      (status: number) =>
+      (r: { url(): string; status(): number; request(): { method(): string } }) =>
+        r.request().method() === 'PUT' &&
+        r.url().endsWith(`/api/journals/${journal.id}`) &&
+        r.status() === status;
+
+    await page.clock.setSystemTime(new Date('2026-03-14T11:00:00'));
+    await page.goto(`${e.baseUrl}/journals/${journal.id}/vat`);
+    await page.getByRole('heading', { name: 'Warming the milk' }).waitFor();
+
+    // The phone loses the connection and the maker starts warming: the update waits.
+    await e.browser.setOffline(true);
+    await page.getByText('Offline').first().waitFor();
+    await tap(page, 'Start warming the milk');
+    await page.getByText('Step 1 of 4 · running').waitFor();
+    await page.getByText(/step times waiting to send/).waitFor();
+
+    // Meanwhile the laptop saves: a note, and a start time typed for the same step.
+    const onLaptop = documentFromDto(journal);
+    onLaptop.notes = 'Milk from the Tuesday collection.';
+    onLaptop.steps[0] = { ...onLaptop.steps[0], startedAt: '2026-03-14T10:40:00.000Z' };
+    expect((await putJournal(laptop, journal.id, onLaptop, journal.version)).status).toBe(200);
+
+    // Back online: the server refuses the stale update; the phone keeps it and asks.
+    await e.browser.setOffline(false);
+    const panel = page.getByRole('alert').filter({ hasText: 'changed somewhere else' });
+    await panel.waitFor();
+    await panel.getByText('Step 1: started at').waitFor();
+    await panel.getByText('Also changed elsewhere, and kept alongside yours: Notes.').waitFor();
+    await e.screenshot(page, 'vat-phone-conflict');
+    // Reloading keeps the held update and asks again.
+    await page.reload();
+    await panel.waitFor();
+
+    const kept = page.waitForResponse(isPut(200), { timeout: 15_000 });
+    await panel.getByRole('button', { name: 'Keep mine and save' }).click();
+    await kept;
+    await panel.waitFor({ state: 'detached' });
+    const stored = await api<JournalDto>(page, 'GET', `/api/journals/${journal.id}`);
+    expect(stored.notes).toBe('Milk from the Tuesday collection.');
+    expect(Date.parse(stored.steps[0].startedAt!)).toBeGreaterThanOrEqual(
+      Date.parse('2026-03-14T11:00:00'),
+    );
+
+    expect(
+      problems.filter(
+        (p) => !p.includes('ERR_INTERNET_DISCONNECTED') && !p.includes('409') && !p.includes('403'),
+      ),
+    ).toEqual([]);
     await page.close();
   });
 

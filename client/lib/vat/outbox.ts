@@ -275,6 +275,7 @@ export class Outbox {
   private lastError: string | null = null;
   private retryTimer: ReturnType<typeof setTimeout> | null = null;
   private running: Promise<void> | null = null;
+  private again = false;
   private singles = 0;
   private disposed = false;
 
@@ -334,9 +335,18 @@ export class Outbox {
   /** Sends what is queued, in order, until the queue is empty or a send fails. */
   flush(): Promise<void> {
     if (this.disposed) return Promise.resolve();
-    // The running loop reads the store before every send, so it picks up new items itself.
-    if (this.running) return this.running;
-    this.running = this.run().finally(() => {
+    // The running loop reads the store before every send, so it picks up new items itself;
+    // one that arrives as the loop is finishing (after its last look) gets one more pass.
+    if (this.running) {
+      this.again = true;
+      return this.running;
+    }
+    this.running = (async () => {
+      do {
+        this.again = false;
+        await this.run();
+      } while (this.again && !this.disposed);
+    })().finally(() => {
       this.running = null;
     });
     return this.running;
