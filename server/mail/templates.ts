@@ -1,4 +1,11 @@
 // Plain-text and simple HTML bodies for every message the site sends. Words are ours.
+import {
+  RAW_MILK_LOCAL_RULES,
+  RAW_MILK_MIN_AGING_DAYS,
+  RAW_MILK_SALE_RULE,
+  RAW_MILK_WHO_SHOULD_AVOID,
+  rawMilkReadyCheck,
+} from '../../shared/trade/aging';
 import type { OutgoingMail } from './mailer';
 
 const escapeHtml = (value: string) =>
@@ -78,6 +85,10 @@ export const mailTemplates = {
       'If you did not do this, reset your password at once with "Forgot password" on the sign-in page.',
     ]),
 
+  /**
+   * The aging target is reached. A raw-milk wheel gets the raw-milk lines (and, before the
+   * 60-day mark, a subject that does not call it ready); a pasteurised one gets none.
+   */
   wheelReady: (
     to: string,
     name: string,
@@ -85,19 +96,35 @@ export const mailTemplates = {
     makeDate: string,
     targetDays: number,
     url: string,
-  ) =>
-    layout(
+    heatTreatment: string,
+  ) => {
+    const raw = rawMilkReadyCheck({ heatTreatment, madeOn: makeDate, targetDays });
+    const rawLines = !raw
+      ? []
+      : raw.readyBeforeMinimum
+        ? [
+            `This wheel is made from unpasteurised milk, and its ${targetDays}-day target comes before the ${RAW_MILK_MIN_AGING_DAYS}-day mark, which it reaches on ${raw.minimumMetOn}. ${RAW_MILK_SALE_RULE}`,
+            `${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`,
+          ]
+        : [
+            `This wheel is made from unpasteurised milk. ${RAW_MILK_SALE_RULE}`,
+            `${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`,
+          ];
+    return layout(
       to,
-      `Ready to taste: ${title}`,
+      raw?.readyBeforeMinimum
+        ? `Aging target reached (raw milk, under ${RAW_MILK_MIN_AGING_DAYS} days): ${title}`
+        : `Ready to taste: ${title}`,
       [
         `Hello ${name},`,
         `Your wheel "${title}", made on ${makeDate}, has reached its aging target of ${targetDays} days.`,
         'When you open it, score it while the taste is fresh: overall liking and each attribute, with friends if they are there.',
-        'Before serving a raw-milk cheese, check that it has aged at least 60 days and follow your local food codes.',
+        ...rawLines,
         'You can turn these reminders off in your account settings.',
       ],
       { label: 'Score this wheel', url },
-    ),
+    );
+  },
 
   wheelCheck: (to: string, name: string, title: string, url: string) =>
     layout(

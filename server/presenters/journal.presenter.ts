@@ -152,7 +152,11 @@ export function figuresInputOf(
     greenWeightKg: journal.greenWeightKg,
     weighIns: children.weighIns,
     readings: children.readings,
-    aging: { targetDays: journal.agingTargetDays },
+    aging: {
+      targetDays: journal.agingTargetDays,
+      openedOn: journal.openedOn,
+      wheelStatus: journal.wheelStatus,
+    },
   };
 }
 

@@ -19,6 +19,7 @@ export async function listCaveWheels(db: Database, userId: number) {
       agingHumidityPercent: journals.agingHumidityPercent,
       rindTreatment: journals.rindTreatment,
       heatTreatment: journals.heatTreatment,
+      styleSlug: styles.slug,
     })
     .from(journals)
     .innerJoin(styles, eq(styles.id, journals.styleId))
@@ -45,13 +46,14 @@ export async function listCaveWheels(db: Database, userId: number) {
   return rows.map((r) => ({ ...r, lastWeighIn: latest.get(r.id) ?? null }));
 }
 
-/** Sets a journal's wheel status. */
+/** Sets a journal's wheel status and the day it was opened (null while in the cave). */
 export async function setWheelStatus(
   db: Database,
   journalId: number,
   wheelStatus: (typeof journals.$inferInsert)['wheelStatus'],
+  openedOn: string | null,
 ) {
-  await db.update(journals).set({ wheelStatus }).where(eq(journals.id, journalId));
+  await db.update(journals).set({ wheelStatus, openedOn }).where(eq(journals.id, journalId));
 }
 
 /** Every wheel of a member with an aging target (for the calendar feed). */
@@ -63,6 +65,7 @@ export function listReadyDates(db: Database, userId: number) {
       makeDate: journals.makeDate,
       agingTargetDays: journals.agingTargetDays,
       agingCheckDate: journals.agingCheckDate,
+      heatTreatment: journals.heatTreatment,
       wheelStatus: journals.wheelStatus,
     })
     .from(journals)
@@ -110,6 +113,7 @@ export type ClaimedReminder = {
   title: string;
   makeDate: string;
   agingTargetDays: number | null;
+  heatTreatment: string;
   email: string;
   displayName: string;
 };
@@ -151,6 +155,7 @@ export async function claimReminders(db: Database, limit = 50): Promise<ClaimedR
       title: journals.title,
       makeDate: journals.makeDate,
       agingTargetDays: journals.agingTargetDays,
+      heatTreatment: journals.heatTreatment,
       wheelStatus: journals.wheelStatus,
       email: users.email,
       displayName: users.displayName,

@@ -1,6 +1,6 @@
 import { and, asc, eq, gt, isNull, ne, sql } from 'drizzle-orm';
 import type { Database } from '../db/client';
-import { journals, users } from '../db/schema';
+import { journals, styles, users } from '../db/schema';
 import { tastingInvites, tastings } from '../db/schema/tastings';
 import { refreshCompareFacts } from './compare.repository';
 
@@ -175,8 +175,12 @@ export async function findJournalForTasting(db: Database, journalId: number) {
       visibility: journals.visibility,
       hiddenAt: journals.hiddenAt,
       wheelStatus: journals.wheelStatus,
+      openedOn: journals.openedOn,
+      heatTreatment: journals.heatTreatment,
+      styleSlug: styles.slug,
     })
     .from(journals)
+    .innerJoin(styles, eq(styles.id, journals.styleId))
     .where(eq(journals.id, journalId))
     .limit(1);
   return row;

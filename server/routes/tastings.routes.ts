@@ -17,7 +17,7 @@ export function journalTastingsRouter(ctx: AppContext): Router {
   const router = Router({ mergeParams: true });
 
   router.get('/tastings', validate('params', journalParams), async (req, res) => {
-    const { rows, bands } = await tastings.listJournalTastings(
+    const { rows, bands, invites } = await tastings.listJournalTastings(
       ctx,
       req.member,
       valid(res, 'params', journalParams).id,
@@ -28,6 +28,7 @@ export function journalTastingsRouter(ctx: AppContext): Router {
         hidden: r.hidden,
       })),
       bands,
+      ...(invites ? { invites } : {}),
     });
   });
 

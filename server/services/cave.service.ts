@@ -1,6 +1,14 @@
 import { createHmac } from 'node:crypto';
 import ical from 'ical-generator';
-import { ageInDays, daysToTarget, readyDate } from '../../shared/trade/aging';
+import {
+  RAW_MILK_MIN_AGING_DAYS,
+  ageInDays,
+  daysToTarget,
+  openedOnAfter,
+  rawMilkReadyCheck,
+  readyDate,
+} from '../../shared/trade/aging';
+import { calendarDateOf, isoDate } from '../../shared/trade/time';
 import type { CaveWheelDto } from '../../shared/types/tasting';
 import type { AppContext } from '../context';
 import { ForbiddenError, NotFoundError } from '../lib/errors';
@@ -39,6 +47,12 @@ export async function listCave(
       },
       lastWeighIn: r.lastWeighIn,
       heatTreatment: r.heatTreatment,
+      styleSlug: r.styleSlug,
+      rawMilk: rawMilkReadyCheck({
+        heatTreatment: r.heatTreatment,
+        madeOn: r.makeDate,
+        targetDays: target ?? RAW_MILK_MIN_AGING_DAYS,
+      }),
     };
   });
 }
@@ -56,7 +70,8 @@ export async function changeWheelStatus(
   }
   if (journal.userId !== member.id)
     throw new ForbiddenError('NOT_YOUR_JOURNAL', 'Only the maker can move this wheel.');
-  await setWheelStatus(ctx.database.db, journalId, status);
+  const today = isoDate(calendarDateOf(new Date()));
+  await setWheelStatus(ctx.database.db, journalId, status, openedOnAfter(journal, status, today));
 }
 
 function calendarSignature(ctx: AppContext, userId: number, version: number): string {
@@ -108,12 +123,22 @@ export async function calendarFeed(ctx: AppContext, token: string): Promise<stri
   });
   for (const w of wheels) {
     const ready = readyDate(w.makeDate, w.agingTargetDays!);
+    const raw = rawMilkReadyCheck({
+      heatTreatment: w.heatTreatment,
+      madeOn: w.makeDate,
+      targetDays: w.agingTargetDays,
+    });
+    const rawLine = raw?.readyBeforeMinimum
+      ? ` Raw milk: this is before the ${RAW_MILK_MIN_AGING_DAYS}-day mark (${raw.minimumMetOn}); see the safety notes before eating or sharing it.`
+      : '';
     calendar.createEvent({
       id: `rindwise-ready-${w.id}`,
       start: new Date(`${ready}T00:00:00Z`),
       allDay: true,
-      summary: `Ready to taste: ${w.title}`,
-      description: `Made on ${w.makeDate}, aging target ${w.agingTargetDays} days. Score it at ${ctx.config.publicUrl}/journals/${w.id}/taste`,
+      summary: raw?.readyBeforeMinimum
+        ? `Aging target reached (raw milk, under ${RAW_MILK_MIN_AGING_DAYS} days): ${w.title}`
+        : `Ready to taste: ${w.title}`,
+      description: `Made on ${w.makeDate}, aging target ${w.agingTargetDays} days.${rawLine} Score it at ${ctx.config.publicUrl}/journals/${w.id}/taste`,
       url: `${ctx.config.publicUrl}/journals/${w.id}`,
     });
     if (w.agingCheckDate) {

@@ -9,6 +9,7 @@ import type {
   weighInSchema,
 } from '../../shared/schemas/journal';
 import { isoDate, calendarDateOf } from '../../shared/trade/time';
+import { openedOnAfter } from '../../shared/trade/aging';
 import { journalMetrics, type JournalMetrics } from '../../shared/trade/journal-figures';
 import { scaleAmounts } from '../../shared/trade/scaling';
 import { amountToSi, toLitres } from '../../shared/trade/units';
@@ -470,6 +471,8 @@ export async function updateJournalDocument(
     if (ifMatch !== '*' && documentVersion(current, children) !== ifMatch) return false;
     await updateJournal(tx, id, {
       ...documentColumns(input, styleId),
+      // A wheel marked opened or finished in the editor stops aging today (shared/trade/aging).
+      openedOn: openedOnAfter(current, input.wheelStatus, isoDate(calendarDateOf(new Date()))),
       ...metricsForDocument(input, children.readings),
       publishedAt: current.publishedAt ?? (input.status === 'published' ? new Date() : null),
     });

@@ -42,6 +42,7 @@ export async function runReminderPass(
               reminder.makeDate,
               reminder.agingTargetDays ?? 0,
               url,
+              reminder.heatTreatment,
             )
           : mailTemplates.wheelCheck(
               reminder.email,

@@ -6,7 +6,7 @@ import { ageInDays } from '../../shared/trade/aging';
 import { mean } from '../../shared/trade/stats';
 import type { AgeBandDto } from '../../shared/types/tasting';
 import type { AppContext } from '../context';
-import { AppError, ForbiddenError, NotFoundError } from '../lib/errors';
+import { AppError, ConflictError, ForbiddenError, NotFoundError } from '../lib/errors';
 import { hashToken } from '../lib/tokens';
 import type { AuthMember } from '../middleware/authenticate';
 import { updateJournal } from '../repositories/journals.repository';
@@ -83,7 +83,7 @@ export async function listJournalTastings(
   viewer: AuthMember | undefined,
   journalId: number,
 ) {
-  await readableJournalForTasting(ctx, viewer, journalId);
+  const journal = await readableJournalForTasting(ctx, viewer, journalId);
   const rows = await listTastingsForJournal(ctx.database.db, journalId, {
     includeHiddenFor: isStaff(viewer) ? 'all' : viewer?.id,
   });
@@ -100,6 +100,9 @@ export async function listJournalTastings(
   return {
     rows: rows.map((r) => ({ ...r, hidden: marks.get(`tasting:${r.tasting.id}`) ?? null })),
     bands: meansByAgeBand(visible),
+    // Only the maker learns whether invites can be made (and why not).
+    invites:
+      viewer?.id === journal.userId ? { blockedReason: inviteBlockedReason(journal) } : undefined,
   };
 }
 
@@ -161,7 +164,11 @@ export async function addTasting(
   });
   await refreshJournalTastingStats(db, journalId);
   if (isOwner && ['making', 'pressing', 'drying', 'aging'].includes(journal.wheelStatus)) {
-    await updateJournal(db, journalId, { wheelStatus: 'opened' });
+    // The first cut is the tasting's day: the wheel's age stops there.
+    await updateJournal(db, journalId, {
+      wheelStatus: 'opened',
+      openedOn: journal.openedOn ?? input.tastedOn,
+    });
   }
   return id;
 }
@@ -226,11 +233,33 @@ export async function removeTasting(
   await refreshJournalTastingStats(db, tasting.journalId);
 }
 
-/** Makes a tasting invite link for the owner's wheel, valid for two weeks. */
+/**
+ * Why invited tasters could not open this journal, or null when they can. An invite gives the
+ * right to score, never the right to read: a taster must be able to open the journal as any
+ * other member would (accessTo with no special viewer), so a draft, a private journal or one
+ * hidden by a moderator cannot be shared this way, and the privacy rule stays the one rule.
+ */
+export function inviteBlockedReason(
+  journal: Pick<JournalForTasting, 'userId' | 'status' | 'visibility' | 'hiddenAt'>,
+): string | null {
+  if (accessTo(journal, undefined) !== 'none') return null;
+  if (journal.hiddenAt)
+    return 'A moderator has hidden this journal, so invited tasters could not open it. Invites work again once it is shown.';
+  if (journal.status !== 'published')
+    return 'This journal is still a draft, so invited tasters could not open it. Publish it first (public or unlisted), then make the invite link.';
+  return 'This journal is private, so invited tasters could not open it. Make it public or unlisted first, then make the invite link.';
+}
+
+/**
+ * Makes a tasting invite link for the owner's wheel, valid for two weeks; refused with a 409
+ * while the journal is one the invitee could not open (inviteBlockedReason).
+ */
 export async function createInvite(ctx: AppContext, member: AuthMember, journalId: number) {
   const journal = await readableJournalForTasting(ctx, member, journalId);
   if (journal.userId !== member.id)
     throw new ForbiddenError('NOT_YOUR_JOURNAL', 'Only the maker can invite tasters.');
+  const blocked = inviteBlockedReason(journal);
+  if (blocked) throw new ConflictError('JOURNAL_NOT_OPEN_TO_TASTERS', blocked);
   const code = randomBytes(16).toString('base64url');
   const expiresAt = new Date(Date.now() + INVITE_TTL_DAYS * 86_400_000);
   await insertInvite(ctx.database.db, {

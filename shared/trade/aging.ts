@@ -66,7 +66,77 @@ export interface RawMilkCaution {
 
 const RAW_MILK_SOURCE =
   '21 CFR 133.113 (cheddar from unpasteurised milk: held at least 60 days at no less than ' +
-  '35 °F / 1.7 °C); CDC and FDA public guidance on raw milk';
+  '35 °F / 1.7 °C before sale; the standards of other varieties in 21 CFR part 133 say the ' +
+  'same); CDC and FDA public guidance on raw milk';
+
+/** The US sale rule for raw-milk cheese, said plainly (21 CFR 133.113 and part 133). */
+export const RAW_MILK_SALE_RULE =
+  'In the United States, cheese made from unpasteurised milk must be held at least ' +
+  `${RAW_MILK_MIN_AGING_DAYS} days at no less than 1.7 °C (35 °F) before it is sold ` +
+  '(21 CFR 133.113 for cheddar, and the standards of other varieties in 21 CFR part 133). ' +
+  'That is a rule for sale, not a promise that the cheese is safe to eat.';
+
+/** Who should not eat raw-milk cheese, and why (CDC and FDA public guidance on raw milk). */
+export const RAW_MILK_WHO_SHOULD_AVOID =
+  'Raw milk can carry Listeria, E. coli O157:H7, Salmonella, Campylobacter and Brucella, and ' +
+  'aging lowers that risk without removing it: pregnant people, young children, older adults ' +
+  'and anyone with a weakened immune system should not eat raw-milk cheese (CDC and FDA ' +
+  'public guidance).';
+
+/** The closing deferral to local rules, shown with every raw-milk caution. */
+export const RAW_MILK_LOCAL_RULES = 'Local rules and food codes may be stricter and come first.';
+
+/** true for milk that was not pasteurised: raw, or only thermised (heated below pasteurising). */
+export const isUnpasteurised = (heatTreatment: string) =>
+  heatTreatment === 'raw' || heatTreatment === 'thermised';
+
+export interface RawMilkReadyCheck {
+  /** first date the 60-day minimum is met, ISO "YYYY-MM-DD" */
+  minimumMetOn: string;
+  /** true when the wheel's ready date (make date + target) comes before that date */
+  readyBeforeMinimum: boolean;
+  /** days between the ready date and the 60-day mark (0 when not before it) */
+  daysShortAtReady: number;
+}
+
+/**
+ * Returns, for a wheel of unpasteurised-milk cheese with an aging target, the 60-day mark
+ * and whether the ready date comes before it (days; 21 CFR 133.113); null for pasteurised
+ * milk or without a target.
+ */
+export function rawMilkReadyCheck(input: {
+  heatTreatment: string;
+  madeOn: TimeInput | CalendarDate;
+  targetDays: number | null;
+  timeZone?: string;
+}): RawMilkReadyCheck | null {
+  if (!isUnpasteurised(input.heatTreatment) || input.targetDays === null) return null;
+  const daysShortAtReady = Math.max(0, RAW_MILK_MIN_AGING_DAYS - input.targetDays);
+  return {
+    minimumMetOn: readyDate(input.madeOn, RAW_MILK_MIN_AGING_DAYS, input.timeZone),
+    readyBeforeMinimum: daysShortAtReady > 0,
+    daysShortAtReady,
+  };
+}
+
+/** Wheel statuses after the wheel was cut: its age stops at the day it was opened. */
+export const CUT_WHEEL_STATUSES: readonly string[] = ['opened', 'finished'];
+
+/**
+ * Returns the opened-on date a journal should keep when its wheel moves from one status to
+ * another (ISO "YYYY-MM-DD" or null): the day it is first cut (`today`), kept through
+ * opened and finished, cleared when the wheel goes back to the cave (common practice, no
+ * published source: a wheel stops aging once cut).
+ */
+export function openedOnAfter(
+  previous: { wheelStatus: string; openedOn: string | null },
+  nextStatus: string,
+  today: string,
+): string | null {
+  if (!CUT_WHEEL_STATUSES.includes(nextStatus))
+    return nextStatus === 'discarded' ? previous.openedOn : null;
+  return previous.openedOn ?? today;
+}
 
 // Shown when a wheel of unpasteurised-milk cheese is opened or shared before 60 days.
 /** Returns the raw-milk flag, days short of 60 and caution text (21 CFR 133.113; CDC/FDA). */
@@ -82,14 +152,10 @@ export function rawMilkCaution(input: {
   const daysShort = input.unpasteurised ? Math.max(0, RAW_MILK_MIN_AGING_DAYS - ageDays) : 0;
   const flagged = daysShort > 0;
   const message = flagged
-    ? `This wheel is cheese from unpasteurised milk and is ${ageDays} days old. The US ` +
-      `standard for cheddar (21 CFR 133.113) requires such cheese to age at least ` +
-      `${RAW_MILK_MIN_AGING_DAYS} days at 35 °F (1.7 °C) or above before sale; this wheel ` +
-      `gets there on ${minimumMetOn}, ${daysShort} days from now. Raw milk can carry ` +
-      'Listeria, E. coli O157:H7, Salmonella, Campylobacter and Brucella, and aging lowers ' +
-      'that risk without removing it: pregnant people, young children, older adults and ' +
-      'anyone with a weakened immune system should not eat it. Your local rules may be ' +
-      'stricter and take precedence.'
+    ? `This wheel is cheese from unpasteurised milk and is ${ageDays} ${ageDays === 1 ? 'day' : 'days'} old; ` +
+      `it reaches ${RAW_MILK_MIN_AGING_DAYS} days on ${minimumMetOn}, ${daysShort} ` +
+      `${daysShort === 1 ? 'day' : 'days'} later. ${RAW_MILK_SALE_RULE} ` +
+      `${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`
     : '';
   return { flagged, ageDays, daysShort, minimumMetOn, message, source: RAW_MILK_SOURCE };
 }

@@ -4,7 +4,17 @@
 // run them on an unsaved draft for a live preview.
 
 import type { DerivedFiguresDto } from '../types/journal';
-import { ageInDays, daysToTarget, rawMilkCaution, readyDate } from './aging';
+import {
+  CUT_WHEEL_STATUSES,
+  RAW_MILK_LOCAL_RULES,
+  RAW_MILK_SALE_RULE,
+  RAW_MILK_WHO_SHOULD_AVOID,
+  ageInDays,
+  daysToTarget,
+  rawMilkCaution,
+  rawMilkReadyCheck,
+  readyDate,
+} from './aging';
 import { milkDensity, milkMassKg } from './milk';
 import type { MilkSpecies } from './milk';
 import { moistureLossSeries } from './moisture';
@@ -49,7 +59,8 @@ export interface JournalFiguresInput {
   greenWeightKg: number | null;
   weighIns: readonly { date: string; massKg: number }[];
   readings: readonly { takenAt: string | Date; tempC: number | null; stepIndex: number | null }[];
-  aging: { targetDays: number | null };
+  /** openedOn and wheelStatus stop the age at the day the wheel was cut (opened, finished). */
+  aging: { targetDays: number | null; openedOn?: string | null; wheelStatus?: string };
 }
 
 /** The figures kept in the journals.metric_* columns (null where the journal lacks the data). */
@@ -222,12 +233,7 @@ function predictedYield(input: JournalFiguresInput): { value: number; basis: str
   return { value, basis };
 }
 
-const RAW_MILK_GENERAL =
-  'Made from unpasteurised milk. Raw milk can carry Listeria, E. coli O157:H7, Salmonella, ' +
-  'Campylobacter and Brucella (CDC and FDA guidance); aging at least 60 days (21 CFR 133.113) ' +
-  'lowers that risk without removing it. Pregnant people, young children, older adults and ' +
-  'anyone with a weakened immune system should avoid raw-milk cheese. Your local rules may be ' +
-  'stricter and take precedence.';
+const RAW_MILK_GENERAL = `Made from unpasteurised milk. ${RAW_MILK_SALE_RULE} ${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`;
 
 /** Returns every figure the journal page shows, worked out with shared/trade at an instant. */
 export function journalDerivedFigures(
@@ -252,6 +258,14 @@ export function journalDerivedFigures(
   const targetDays = input.aging.targetDays;
   const unpasteurised =
     input.milk.heatTreatment === 'raw' || input.milk.heatTreatment === 'thermised';
+  // Once cut, a wheel stops aging: the page shows its age at opening, not a running age.
+  const cut = CUT_WHEEL_STATUSES.includes(input.aging.wheelStatus ?? '');
+  const openedOn = input.aging.openedOn ?? null;
+  const rawReady = rawMilkReadyCheck({
+    heatTreatment: input.milk.heatTreatment,
+    madeOn: input.makeDate,
+    targetDays,
+  });
   const caution = unpasteurised
     ? rawMilkCaution({ unpasteurised, madeOn: input.makeDate, at })
     : null;
@@ -308,6 +322,11 @@ export function journalDerivedFigures(
       targetDays,
       daysLeft: targetDays !== null ? daysToTarget(input.makeDate, targetDays, at) : null,
       readyDate: targetDays !== null ? readyDate(input.makeDate, targetDays) : null,
+      cut,
+      openedOn: cut ? openedOn : null,
+      ageAtOpeningDays: cut && openedOn ? ageInDays(input.makeDate, openedOn) : null,
+      rawMilkMinimumOn: rawReady?.minimumMetOn ?? null,
+      readyBeforeRawMilkMinimum: rawReady?.readyBeforeMinimum ?? false,
     },
     rawMilkCaution: caution
       ? { flagged: caution.flagged, text: caution.flagged ? caution.message : RAW_MILK_GENERAL }

@@ -133,6 +133,15 @@ export type DerivedFiguresDto = {
     targetDays: number | null;
     daysLeft: number | null;
     readyDate: string | null;
+    /** true once the wheel is opened or finished: its age stopped at the opening. */
+    cut: boolean;
+    /** The day it was opened, when known (opened or finished wheels only). */
+    openedOn: string | null;
+    ageAtOpeningDays: number | null;
+    /** For unpasteurised milk with a target: the 60-day mark (21 CFR 133.113). */
+    rawMilkMinimumOn: string | null;
+    /** true when the ready date comes before that mark. */
+    readyBeforeRawMilkMinimum: boolean;
   };
   rawMilkCaution: { flagged: boolean; text: string } | null;
 };

@@ -1,4 +1,5 @@
 import type { Defect, FlavourDescriptor } from '../constants/tasting';
+import type { RawMilkReadyCheck } from '../trade/aging';
 import type { HiddenMarkDto, MakerRef } from './journal';
 
 export type TastingDto = {
@@ -48,4 +49,10 @@ export type CaveWheelDto = {
   conditions: { tempC: number | null; humidityPercent: number | null; rind: string };
   lastWeighIn: { date: string; massKg: number } | null;
   heatTreatment: string;
+  styleSlug: string;
+  /**
+   * For unpasteurised milk: the 60-day mark (21 CFR 133.113) and whether the ready date
+   * comes before it; null for pasteurised milk.
+   */
+  rawMilk: RawMilkReadyCheck | null;
 };

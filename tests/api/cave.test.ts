@@ -174,3 +174,149 @@ describe('calendar feed', () => {
     expect((await visitor(t.app).get(new URL(reset.body.url).pathname)).status).toBe(200);
   });
 });
+
+describe('raw milk and the 60-day mark', () => {
+  it('tells the cave when a raw-milk wheel is ready before its 60-day mark, and only for raw milk', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    const raw = await insertJournalRow(t.ctx, maker.member.id, {
+      title: 'Raw caerphilly',
+      heatTreatment: 'raw',
+      makeDate: '2026-12-02',
+      agingTargetDays: 45,
+    });
+    const pasteurised = await insertJournalRow(t.ctx, maker.member.id, {
+      title: 'Pasteurised caerphilly',
+      makeDate: '2026-12-02',
+      agingTargetDays: 45,
+    });
+    const wheels = (await maker.get('/api/cave').expect(200)).body.wheels as {
+      journalId: number;
+      readyDate: string;
+      rawMilk: unknown;
+    }[];
+    const rawWheel = wheels.find((w) => w.journalId === raw)!;
+    expect(rawWheel.readyDate).toBe('2027-01-16');
+    expect(rawWheel.rawMilk).toEqual({
+      minimumMetOn: '2027-01-31',
+      readyBeforeMinimum: true,
+      daysShortAtReady: 15,
+    });
+    expect(wheels.find((w) => w.journalId === pasteurised)!.rawMilk).toBeNull();
+  });
+
+  it('mails the raw-milk rule (for sale, not a safety promise) only for raw-milk wheels, and does not call one under 60 days ready', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    const young = `Young raw ${maker.member.handle}`;
+    const old = `Old raw ${maker.member.handle}`;
+    const plain = `Pasteurised ${maker.member.handle}`;
+    await insertJournalRow(t.ctx, maker.member.id, {
+      title: young,
+      heatTreatment: 'raw',
+      makeDate: daysAgo(46),
+      agingTargetDays: 45,
+    });
+    await insertJournalRow(t.ctx, maker.member.id, {
+      title: old,
+      heatTreatment: 'thermised',
+      makeDate: daysAgo(100),
+      agingTargetDays: 90,
+    });
+    await insertJournalRow(t.ctx, maker.member.id, {
+      title: plain,
+      makeDate: daysAgo(100),
+      agingTargetDays: 90,
+    });
+    await runReminderPass(t.ctx);
+    const [youngMail] = mailsAbout(young);
+    expect(youngMail.subject).toBe(`Aging target reached (raw milk, under 60 days): ${young}`);
+    expect(youngMail.text).toContain(`reaches on ${daysAgo(-14)}`);
+    expect(youngMail.text).toMatch(
+      /at least 60 days at no less than 1\.7 °C \(35 °F\) before it is sold \(21 CFR 133\.113/,
+    );
+    expect(youngMail.text).toMatch(/not a promise that the cheese is safe to eat/);
+    expect(youngMail.text).toMatch(/pregnant people, young children, older adults/);
+    const [oldMail] = mailsAbout(old);
+    expect(oldMail.subject).toBe(`Ready to taste: ${old}`);
+    expect(oldMail.text).toMatch(/unpasteurised milk.*before it is sold/);
+    const [plainMail] = mailsAbout(plain);
+    expect(plainMail.subject).toBe(`Ready to taste: ${plain}`);
+    expect(plainMail.text).not.toMatch(/raw|unpasteurised|60 days/i);
+  });
+
+  it('marks the calendar event of a raw-milk wheel ready before 60 days', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    await insertJournalRow(t.ctx, maker.member.id, {
+      title: 'Raw feed wheel',
+      heatTreatment: 'raw',
+      makeDate: '2026-12-02',
+      agingTargetDays: 45,
+    });
+    const { url } = (await maker.get('/api/cave/calendar').expect(200)).body as { url: string };
+    const feed = await visitor(t.app).get(new URL(url).pathname).expect(200);
+    const unfolded = feed.text.replace(/\r\n[ \t]/g, '');
+    expect(unfolded).toContain(
+      'SUMMARY:Aging target reached (raw milk\\, under 60 days): Raw feed wheel',
+    );
+    expect(unfolded).toContain('before the 60-day mark (2027-01-31)');
+  });
+});
+
+describe('opened wheels stop aging', () => {
+  it('records the day a wheel leaves the cave as opened, keeps it when finished, clears it when put back', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    const id = await insertJournalRow(t.ctx, maker.member.id, {
+      makeDate: daysAgo(47),
+      agingTargetDays: 42,
+    });
+    const openedOn = async () =>
+      (
+        await t.ctx.database.db
+          .select({ openedOn: journals.openedOn })
+          .from(journals)
+          .where(eq(journals.id, id))
+      )[0].openedOn;
+    expect((await maker.post(`/api/cave/${id}/status`, { wheelStatus: 'opened' })).status).toBe(
+      204,
+    );
+    expect(await openedOn()).toBe(daysAgo(0));
+    const page = (await maker.get(`/api/journals/${id}`).expect(200)).body.derived.aging;
+    expect(page).toMatchObject({
+      cut: true,
+      openedOn: daysAgo(0),
+      ageAtOpeningDays: 47,
+    });
+    // Later, finishing it keeps the opening day.
+    await t.ctx.database.db
+      .update(journals)
+      .set({ openedOn: daysAgo(60) })
+      .where(eq(journals.id, id));
+    expect((await maker.post(`/api/cave/${id}/status`, { wheelStatus: 'finished' })).status).toBe(
+      204,
+    );
+    expect(await openedOn()).toBe(daysAgo(60));
+    expect((await maker.post(`/api/cave/${id}/status`, { wheelStatus: 'aging' })).status).toBe(204);
+    expect(await openedOn()).toBeNull();
+    const back = (await maker.get(`/api/journals/${id}`).expect(200)).body.derived.aging;
+    expect(back).toMatchObject({ cut: false, openedOn: null, ageAtOpeningDays: null });
+  });
+
+  it("takes the maker's first tasting as the opening day", async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    const id = await insertJournalRow(t.ctx, maker.member.id, { makeDate: daysAgo(50) });
+    const tasted = await maker.post(`/api/journals/${id}/tastings`, {
+      tastedOn: daysAgo(3),
+      overall: 7,
+      appearance: 7,
+      aroma: 7,
+      flavour: 7,
+      texture: 7,
+      finish: 7,
+      descriptors: [],
+      defects: [],
+      notes: '',
+    });
+    expect(tasted.status).toBe(201);
+    const aging = (await maker.get(`/api/journals/${id}`).expect(200)).body.derived.aging;
+    expect(aging).toMatchObject({ cut: true, openedOn: daysAgo(3), ageAtOpeningDays: 47 });
+  });
+});

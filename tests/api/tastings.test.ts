@@ -173,3 +173,50 @@ describe('PATCH and DELETE /api/tastings/:id', () => {
     expect(row).toMatchObject({ tastingCount: 0, meanOverall: null });
   });
 });
+
+describe('POST /api/journals/:id/invites', () => {
+  it('refuses a signed-out caller (401) and a bad journal id (400)', async () => {
+    expect((await visitor(t.app).post('/api/journals/1/invites')).status).toBe(401);
+    const owner = await signedIn(t.app, t.ctx);
+    const bad = await owner.post('/api/journals/not-a-number/invites');
+    expect(bad.status).toBe(400);
+    expect(bad.body.error.fields.id).toBeDefined();
+  });
+
+  it('refuses (409, with the reason) an invite to a draft, a private or a hidden journal, which an invited taster could not open', async () => {
+    const owner = await signedIn(t.app, t.ctx);
+    const friend = await signedIn(t.app, t.ctx);
+    const cases = [
+      [{ status: 'draft' as const, publishedAt: null }, /draft.*Publish it first/],
+      [{ visibility: 'private' as const }, /private.*public or unlisted/],
+      [{ hiddenAt: new Date() }, /moderator has hidden/],
+    ] as const;
+    for (const [over, reason] of cases) {
+      const id = await insertJournalRow(t.ctx, owner.member.id, over);
+      const res = await owner.post(`/api/journals/${id}/invites`);
+      expect(res.status).toBe(409);
+      expect(res.body.error.code).toBe('JOURNAL_NOT_OPEN_TO_TASTERS');
+      expect(res.body.error.message).toMatch(reason);
+      // The maker's tasting list says the same, so the page explains instead of offering the button.
+      const list = await owner.get(`/api/journals/${id}/tastings`).expect(200);
+      expect(list.body.invites.blockedReason).toMatch(reason);
+      // Nothing about the journal leaks to the friend.
+      expect((await friend.get(`/api/journals/${id}`)).status).toBe(404);
+      expect((await friend.get(`/api/journals/${id}/tastings`)).status).toBe(404);
+    }
+  });
+
+  it('makes invites for published public and unlisted journals, which the invitee can open; only the maker learns about invites', async () => {
+    const owner = await signedIn(t.app, t.ctx);
+    const friend = await signedIn(t.app, t.ctx);
+    for (const visibility of ['public', 'unlisted'] as const) {
+      const id = await insertJournalRow(t.ctx, owner.member.id, { visibility });
+      expect((await owner.post(`/api/journals/${id}/invites`)).status).toBe(201);
+      const mine = await owner.get(`/api/journals/${id}/tastings`).expect(200);
+      expect(mine.body.invites).toEqual({ blockedReason: null });
+      expect((await friend.get(`/api/journals/${id}`)).status).toBe(200);
+      const theirs = await friend.get(`/api/journals/${id}/tastings`).expect(200);
+      expect(theirs.body.invites).toBeUndefined();
+    }
+  });
+});

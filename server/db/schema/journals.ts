@@ -71,6 +71,9 @@ export const journals = mysqlTable(
     agingTempC: double('aging_temp_c'),
     agingHumidityPercent: double('aging_humidity_percent'),
     agingCheckDate: date('aging_check_date', { mode: 'string' }),
+    // The day the wheel was cut (set when it moves to opened or finished, or at the maker's
+    // first tasting); ages of opened wheels stop there instead of running on.
+    openedOn: date('opened_on', { mode: 'string' }),
     greenWeightKg: double('green_weight_kg'),
     notes: mediumtext('notes').notNull(),
     hiddenAt: datetime('hidden_at', { mode: 'date' }),

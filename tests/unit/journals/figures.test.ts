@@ -138,7 +138,54 @@ describe('derived figures for the journal page', () => {
 
   it('ages in calendar days, with the ready date and days left', () => {
     const d = journalDerivedFigures(base({ aging: { targetDays: 60 } }), '2026-02-01T23:00:00Z');
-    expect(d.aging).toEqual({ ageDays: 22, targetDays: 60, daysLeft: 38, readyDate: '2026-03-11' });
+    expect(d.aging).toEqual({
+      ageDays: 22,
+      targetDays: 60,
+      daysLeft: 38,
+      readyDate: '2026-03-11',
+      cut: false,
+      openedOn: null,
+      ageAtOpeningDays: null,
+      rawMilkMinimumOn: null,
+      readyBeforeRawMilkMinimum: false,
+    });
+  });
+
+  it('stops the age of an opened or finished wheel at the day it was opened (common practice)', () => {
+    // A camembert opened at 47 days and still shown months later.
+    const opened = base({
+      aging: { targetDays: 42, openedOn: '2026-02-26', wheelStatus: 'opened' },
+    });
+    const d = journalDerivedFigures(opened, '2026-04-25');
+    expect(d.aging).toMatchObject({ cut: true, openedOn: '2026-02-26', ageAtOpeningDays: 47 });
+    const finished = base({
+      aging: { targetDays: 42, openedOn: '2026-02-26', wheelStatus: 'finished' },
+    });
+    expect(journalDerivedFigures(finished, '2026-09-01').aging.ageAtOpeningDays).toBe(47);
+    const unknown = base({ aging: { targetDays: 42, openedOn: null, wheelStatus: 'opened' } });
+    expect(journalDerivedFigures(unknown, '2026-04-25').aging).toMatchObject({
+      cut: true,
+      ageAtOpeningDays: null,
+    });
+    const aging = base({ aging: { targetDays: 42, openedOn: '2026-02-26', wheelStatus: 'aging' } });
+    expect(journalDerivedFigures(aging, '2026-04-25').aging).toMatchObject({
+      cut: false,
+      openedOn: null,
+    });
+  });
+
+  it('marks a raw-milk ready date before the 60-day mark (21 CFR 133.113)', () => {
+    const raw = base({
+      makeDate: '2026-12-02',
+      milk: { ...base().milk, heatTreatment: 'raw' },
+      aging: { targetDays: 45 },
+    });
+    const d = journalDerivedFigures(raw, '2026-12-10');
+    expect(d.aging).toMatchObject({
+      readyDate: '2027-01-16',
+      rawMilkMinimumOn: '2027-01-31',
+      readyBeforeRawMilkMinimum: true,
+    });
   });
 
   it('cautions on unpasteurised milk, flagged before 60 days (21 CFR 133.113)', () => {

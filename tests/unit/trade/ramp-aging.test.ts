@@ -4,7 +4,9 @@ import {
   RAW_MILK_MIN_AGING_TEMP_C,
   ageInDays,
   daysToTarget,
+  openedOnAfter,
   rawMilkCaution,
+  rawMilkReadyCheck,
   readyDate,
 } from '../../../shared/trade/aging';
 import {
@@ -170,6 +172,44 @@ describe('aging and the raw-milk caution', () => {
     expect(early.message).toMatch(/21 CFR 133\.113/);
     expect(early.message).toMatch(/local rules/i);
     expect(early.source).toMatch(/21 CFR 133\.113/);
+  });
+
+  it('states the rule as one for sale, not a safety promise, and who should not eat it (21 CFR 133.113; CDC/FDA)', () => {
+    const early = rawMilkCaution({ unpasteurised: true, madeOn: '2024-01-01', at: '2024-02-15' });
+    expect(early.message).toMatch(
+      /held at least 60 days at no less than 1\.7 °C \(35 °F\) before it is sold/,
+    );
+    expect(early.message).toMatch(/not a promise that the cheese is safe to eat/);
+    expect(early.message).toMatch(
+      /pregnant people, young children, older adults and anyone with a weakened immune system/,
+    );
+  });
+
+  it('finds a raw-milk ready date before the 60-day mark (21 CFR 133.113)', () => {
+    expect(
+      rawMilkReadyCheck({ heatTreatment: 'raw', madeOn: '2026-12-02', targetDays: 45 }),
+    ).toEqual({ minimumMetOn: '2027-01-31', readyBeforeMinimum: true, daysShortAtReady: 15 });
+    expect(
+      rawMilkReadyCheck({ heatTreatment: 'thermised', madeOn: '2026-12-02', targetDays: 90 }),
+    ).toMatchObject({ readyBeforeMinimum: false, daysShortAtReady: 0 });
+    expect(
+      rawMilkReadyCheck({ heatTreatment: 'pasteurised', madeOn: '2026-12-02', targetDays: 45 }),
+    ).toBeNull();
+    expect(
+      rawMilkReadyCheck({ heatTreatment: 'raw', madeOn: '2026-12-02', targetDays: null }),
+    ).toBeNull();
+  });
+
+  it('keeps the opening day through opened and finished, clears it back in the cave (common practice, no published source)', () => {
+    const inCave = { wheelStatus: 'aging', openedOn: null };
+    expect(openedOnAfter(inCave, 'opened', '2026-03-01')).toBe('2026-03-01');
+    expect(openedOnAfter(inCave, 'finished', '2026-03-01')).toBe('2026-03-01');
+    const opened = { wheelStatus: 'opened', openedOn: '2026-02-01' };
+    expect(openedOnAfter(opened, 'finished', '2026-03-01')).toBe('2026-02-01');
+    expect(openedOnAfter(opened, 'opened', '2026-03-01')).toBe('2026-02-01');
+    expect(openedOnAfter(opened, 'discarded', '2026-03-01')).toBe('2026-02-01');
+    expect(openedOnAfter(inCave, 'discarded', '2026-03-01')).toBeNull();
+    expect(openedOnAfter(opened, 'aging', '2026-03-01')).toBeNull();
   });
 
   it('does not flag at 60 days or for pasteurised milk', () => {
