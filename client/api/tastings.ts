@@ -3,7 +3,12 @@ import type { AgeBandDto, TastingDto } from '@shared/types/tasting';
 import { http } from './http';
 
 /** Every tasting of a journal, with the mean scores per age band. */
-export type JournalTastings = { tastings: TastingDto[]; bands: AgeBandDto[] };
+export type JournalTastings = {
+  tastings: TastingDto[];
+  bands: AgeBandDto[];
+  /** For the maker only: why invited tasters could not open the journal, or null. */
+  invites?: { blockedReason: string | null };
+};
 
 /** A tasting invite: the link handed to friends at a meeting, and when it stops working. */
 export type TastingInvite = { code: string; url: string; expiresAt: string };

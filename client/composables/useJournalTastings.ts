@@ -11,6 +11,8 @@ export function useJournalTastings(journalId: MaybeRefOrGetter<number>) {
   const error = ref<string | null>(null);
   const invite = ref<TastingInvite | null>(null);
   const inviting = ref(false);
+  /** For the maker: why tasters could not open the journal yet (draft, private), or null. */
+  const inviteBlocked = ref<string | null>(null);
   let controller: AbortController | null = null;
 
   /** Loads the tastings, oldest wheel age first as the server orders them. */
@@ -27,6 +29,7 @@ export function useJournalTastings(journalId: MaybeRefOrGetter<number>) {
         (a, b) => a.ageDays - b.ageDays || a.createdAt.localeCompare(b.createdAt),
       );
       bands.value = data.bands;
+      inviteBlocked.value = data.invites?.blockedReason ?? null;
     } catch (e) {
       if (mine.signal.aborted || (e as Error).name === 'AbortError') return;
       error.value = e instanceof ApiError ? e.message : 'Could not load the tastings.';
@@ -46,6 +49,10 @@ export function useJournalTastings(journalId: MaybeRefOrGetter<number>) {
     inviting.value = true;
     try {
       invite.value = (await createInvite(toValue(journalId))).invite;
+    } catch (e) {
+      // The journal went private or back to draft in another tab: explain, not just fail.
+      if (e instanceof ApiError && e.status === 409) inviteBlocked.value = e.message;
+      throw e;
     } finally {
       inviting.value = false;
     }
@@ -54,5 +61,16 @@ export function useJournalTastings(journalId: MaybeRefOrGetter<number>) {
   watch(() => toValue(journalId), load, { immediate: true });
   onScopeDispose(() => controller?.abort());
 
-  return { tastings, bands, loading, error, reload: load, remove, invite, inviting, makeInvite };
+  return {
+    tastings,
+    bands,
+    loading,
+    error,
+    reload: load,
+    remove,
+    invite,
+    inviting,
+    inviteBlocked,
+    makeInvite,
+  };
 }
