@@ -24,7 +24,8 @@ export type CompareChoice = {
 export const DEFAULT_CHOICE: CompareChoice = {
   x: 'saltPerLitre',
   y: 'overall',
-  per: 'tasting',
+  // One point per batch: a wheel tasted four times is still one batch (see ComparePickers).
+  per: 'journal',
   style: [],
   species: [],
   heat: [],
@@ -52,7 +53,7 @@ export function choiceFromQuery(query: LocationQuery): CompareChoice {
   return {
     x: (read(query, 'x') as CompareParameterKey | undefined) ?? DEFAULT_CHOICE.x,
     y: (read(query, 'y') as CompareOutcomeKey | undefined) ?? DEFAULT_CHOICE.y,
-    per: (read(query, 'per') as 'tasting' | 'journal' | undefined) ?? 'tasting',
+    per: (read(query, 'per') as 'tasting' | 'journal' | undefined) ?? DEFAULT_CHOICE.per,
     style: list<string>('style'),
     species: list<Species>('species'),
     heat: list<HeatTreatment>('heat'),
@@ -81,7 +82,7 @@ export function choiceToParams(c: CompareChoice): CompareParams {
 export function choiceToQuery(c: CompareChoice): LocationQueryRaw {
   const query: LocationQueryRaw = {};
   for (const [key, value] of Object.entries(choiceToParams(c))) {
-    if (key === 'per' && value === 'tasting') continue;
+    if (key === 'per' && value === DEFAULT_CHOICE.per) continue;
     query[key] = Array.isArray(value) ? value.join(',') : String(value);
   }
   return query;

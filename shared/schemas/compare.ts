@@ -12,7 +12,12 @@ const filters = journalListQuerySchema.pick({
   maker: true,
 });
 
-/** GET /api/compare: a parameter, an outcome, the unit of a point, and Discover's filters. */
+/**
+ * GET /api/compare: a parameter, an outcome, the unit of a point, and Discover's filters.
+ * A point is one batch (its tastings' mean) unless per=tasting asks for every scorecard:
+ * tastings of one wheel are not independent, so counting each would make the interval too
+ * narrow.
+ */
 export const compareQuerySchema = filters.extend({
   x: z.enum(COMPARE_PARAMETER_KEYS, {
     error: `Choose x from: ${COMPARE_PARAMETER_KEYS.join(', ')}.`,
@@ -20,7 +25,7 @@ export const compareQuerySchema = filters.extend({
   y: z.enum(COMPARE_OUTCOME_KEYS, { error: `Choose y from: ${COMPARE_OUTCOME_KEYS.join(', ')}.` }),
   per: z
     .enum(['tasting', 'journal'], { error: 'Choose per=tasting or per=journal.' })
-    .default('tasting'),
+    .default('journal'),
 });
 
 /** GET /api/compare/journals?ids=1,2,3: two to four journals side by side. */

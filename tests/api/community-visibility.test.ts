@@ -112,7 +112,7 @@ async function expectGoneFor(who: Visitor | Agent, s: Scene, label: string) {
   expect(tasterProfile.scores.given).toEqual({ mean: 8, n: 1 });
 
   const compare = await who
-    .get(`/api/compare?x=saltPerLitre&y=overall&maker=${handle}`)
+    .get(`/api/compare?x=saltPerLitre&y=overall&per=tasting&maker=${handle}`)
     .expect(200);
   expect(compare.body.n, `${label}: compare`).toBe(1);
   expect(compare.body.points.map((p: { journalId: number }) => p.journalId)).toEqual([
@@ -225,7 +225,7 @@ describe('hidden items', () => {
     expect(shown.body).toMatchObject({ tastingCount: 2, meanOverall: 5 });
     expect(ids(shown.body.photos)).toEqual([s.hiddenPhoto]);
     const compare = await anon
-      .get(`/api/compare?x=saltPerLitre&y=overall&maker=${s.maker.member.handle}`)
+      .get(`/api/compare?x=saltPerLitre&y=overall&per=tasting&maker=${s.maker.member.handle}`)
       .expect(200);
     expect(compare.body.n).toBe(3);
     const comments = await anon.get(`/api/journals/${s.shownJournal}/comments`).expect(200);

@@ -48,7 +48,7 @@ async function addTasting(v: Visitor, journalId: number, overall: number, extra 
 
 async function compareOf(maker: Member, as: Visitor = visitor(t.app)) {
   const res = await as
-    .get(`/api/compare?x=saltPerLitre&y=overall&maker=${maker.member.handle}`)
+    .get(`/api/compare?x=saltPerLitre&y=overall&per=tasting&maker=${maker.member.handle}`)
     .expect(200);
   return res.body as { n: number; points: Point[]; fit: unknown };
 }

@@ -68,7 +68,7 @@ function expectSameFit(body: { n: number; fit: Record<string, number> }, ys: num
 describe('Compare past the chart limit', () => {
   it('fits overall liking over every visible tasting from the per-journal sums', async () => {
     const res = await visitor(t.app)
-      .get(`/api/compare?x=saltPerLitre&y=overall&maker=${handle}`)
+      .get(`/api/compare?x=saltPerLitre&y=overall&per=tasting&maker=${handle}`)
       .expect(200);
     expectSameFit(
       res.body,
@@ -80,7 +80,7 @@ describe('Compare past the chart limit', () => {
 
   it('fits any other score from sums over the tastings', async () => {
     const res = await visitor(t.app)
-      .get(`/api/compare?x=saltPerLitre&y=flavour&maker=${handle}`)
+      .get(`/api/compare?x=saltPerLitre&y=flavour&per=tasting&maker=${handle}`)
       .expect(200);
     expectSameFit(
       res.body,

@@ -79,7 +79,7 @@ describe('GET /api/compare', () => {
       n: 10,
       meaningful: true,
       caution: null,
-      per: 'tasting',
+      per: 'journal',
     });
     const [lo, hi] = res.body.fit.slopeInterval95;
     expect(lo).toBeLessThan(1.5);
@@ -183,6 +183,30 @@ describe('GET /api/compare', () => {
     expect(mine.body.points.map((p: { journalId: number }) => p.journalId).sort()).toEqual(
       [open, hidden, draft].sort(),
     );
+  });
+
+  it('counts one point per batch by default, and every scorecard only with per=tasting', async () => {
+    const maker = await createMember(t.ctx);
+    // Five wheels, the first tasted four times: those tastings are not five more batches.
+    for (const [i, salt] of [1.5, 2, 2.5, 3, 3.5].entries()) {
+      const id = await insertJournalRow(t.ctx, maker.id, { metricSaltGPerL: salt });
+      for (const score of i === 0 ? [4, 4, 5, 4] : [5 + (i % 2)])
+        await addTasting(id, maker.id, score);
+    }
+    const base = `/api/compare?x=saltPerLitre&y=overall&maker=${maker.handle}`;
+    const byBatch = await visitor(t.app).get(base).expect(200);
+    expect(byBatch.body).toMatchObject({ per: 'journal', n: 5, meaningful: true });
+    expect(byBatch.body.points.every((p: { tastingId: unknown }) => p.tastingId === null)).toBe(
+      true,
+    );
+    expect(byBatch.body.points.find((p: { x: number }) => p.x === 1.5).y).toBeCloseTo(4.25, 9);
+    const byTasting = await visitor(t.app).get(`${base}&per=tasting`).expect(200);
+    expect(byTasting.body).toMatchObject({ per: 'tasting', n: 8 });
+    // Counting the repeat tastings as points narrows the slope's interval: the reason the
+    // default is one point per batch.
+    const width = (b: { fit: { slopeInterval95: [number, number] } }) =>
+      b.fit.slopeInterval95[1] - b.fit.slopeInterval95[0];
+    expect(width(byTasting.body)).toBeLessThan(width(byBatch.body));
   });
 
   it('averages per journal with per=journal, age at tasting included', async () => {
