@@ -66,6 +66,7 @@ import { hiddenMarks, recordAudit } from './audit.service';
 import { exportCsv, exportJson } from './journals-export';
 import { accessTo, isStaff, type Viewer } from './journal-access';
 import { deletePhotoFilesForJournal } from './photos.service';
+import { refreshTastingAges } from '../repositories/tastings.repository';
 
 export type ReadingInput = z.infer<typeof readingInputSchema>;
 export type WeighInInput = z.infer<typeof weighInSchema>;
@@ -477,6 +478,9 @@ export async function updateJournalDocument(
       publishedAt: current.publishedAt ?? (input.status === 'published' ? new Date() : null),
     });
     await replaceJournalChildren(tx, id, childRows(input));
+    // Each tasting stores the wheel's age on the day; a corrected make date moves them all
+    // (and what Compare relates to age).
+    if (current.makeDate !== input.makeDate) await refreshTastingAges(tx, id);
     return true;
   });
   const journal = await getJournal(ctx, member, id);

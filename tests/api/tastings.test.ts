@@ -1,8 +1,9 @@
 import { eq } from 'drizzle-orm';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { journals } from '../../server/db/schema';
+import { journals, styles } from '../../server/db/schema';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { signedIn } from '../support/factories';
+import { journalDocument, putJournal } from '../support/journal-factory';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
 
 let t: TestApp;
@@ -90,6 +91,29 @@ describe('POST /api/journals/:id/tastings', () => {
       lastTastedAgeDays: 120,
       wheelStatus: 'opened',
     });
+  });
+
+  it('moves the ages of its tastings when the maker corrects the make date', async () => {
+    const owner = await signedIn(t.app, t.ctx);
+    const doc = journalDocument({ makeDate: daysAgo(100) });
+    const created = await owner.post('/api/journals', doc);
+    expect(created.status).toBe(201);
+    const id = created.body.id as number;
+    expect(
+      (await owner.post(`/api/journals/${id}/tastings`, card({ tastedOn: daysAgo(10) }))).status,
+    ).toBe(201);
+    const before = await owner.get(`/api/journals/${id}`).expect(200);
+    const put = await putJournal(
+      owner,
+      id,
+      { ...doc, makeDate: daysAgo(130) },
+      before.body.version,
+    );
+    expect(put.status).toBe(200);
+    const list = await owner.get(`/api/journals/${id}/tastings`).expect(200);
+    expect(list.body.tastings.map((x: { ageDays: number }) => x.ageDays)).toEqual([120]);
+    const [row] = await t.ctx.database.db.select().from(journals).where(eq(journals.id, id));
+    expect(row.lastTastedAgeDays).toBe(120);
   });
 
   it('lets other verified members score only with a live invite, several times over the months', async () => {
@@ -218,5 +242,44 @@ describe('POST /api/journals/:id/invites', () => {
       const theirs = await friend.get(`/api/journals/${id}/tastings`).expect(200);
       expect(theirs.body.invites).toBeUndefined();
     }
+  });
+});
+
+describe('defects by style', () => {
+  const styleId = async (slug: string) =>
+    (await t.ctx.database.db.select({ id: styles.id }).from(styles).where(eq(styles.slug, slug)))[0]
+      .id;
+
+  it("refuses a style's own trait as a defect (crumbly for a Caerphilly-type), with a message on the field; cheddar keeps it", async () => {
+    const owner = await signedIn(t.app, t.ctx);
+    const caerphilly = await insertJournalRow(t.ctx, owner.member.id, {
+      styleId: await styleId('caerphilly'),
+    });
+    const refused = await owner.post(
+      `/api/journals/${caerphilly}/tastings`,
+      card({ defects: ['bitter', 'crumbly'] }),
+    );
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.fields.defects).toMatch(
+      /Crumbly is typical of a Caerphilly-type, so it is not counted as a defect/,
+    );
+    const saved = await owner.post(
+      `/api/journals/${caerphilly}/tastings`,
+      card({ defects: ['bitter'] }),
+    );
+    expect(saved.status).toBe(201);
+    const patched = await owner.patch(`/api/tastings/${saved.body.tasting.id}`, {
+      defects: ['crumbly'],
+    });
+    expect(patched.status).toBe(400);
+    expect(patched.body.error.fields.defects).toMatch(/Caerphilly-type/);
+
+    const cheddar = await insertJournalRow(t.ctx, owner.member.id);
+    const crumblyCheddar = await owner.post(
+      `/api/journals/${cheddar}/tastings`,
+      card({ defects: ['crumbly'] }),
+    );
+    expect(crumblyCheddar.status).toBe(201);
+    expect(crumblyCheddar.body.tasting.defects).toEqual(['crumbly']);
   });
 });
