@@ -11,6 +11,12 @@ export type CompareParameter = {
   kind: QuantityKind | 'category';
   /** Where the value comes from: a journal column, the tasting's age, or a category column. */
   source: 'journal' | 'tasting-age' | 'category';
+  /**
+   * For a numeric parameter whose usual values differ a lot from one style to another: an
+   * example in plain words, shown when no style (or several) is chosen. Common practice among
+   * home makers, no published source.
+   */
+  byStyle?: string;
 };
 
 export const COMPARE_PARAMETERS = [
@@ -20,6 +26,7 @@ export const COMPARE_PARAMETERS = [
     unit: 'g/L',
     kind: 'plain',
     source: 'journal',
+    byStyle: 'a feta or a halloumi is salted far more than a camembert or a fresh chèvre',
   },
   {
     key: 'saltPercent',
@@ -27,6 +34,7 @@ export const COMPARE_PARAMETERS = [
     unit: '%',
     kind: 'plain',
     source: 'journal',
+    byStyle: 'a feta or a halloumi is salted far more than a camembert or a fresh chèvre',
   },
   {
     key: 'colourPerLitre',
@@ -34,6 +42,7 @@ export const COMPARE_PARAMETERS = [
     unit: 'mL/L',
     kind: 'plain',
     source: 'journal',
+    byStyle: 'annatto goes into some cheddars and goudas and into most other styles not at all',
   },
   {
     key: 'calciumChloridePerLitre',
@@ -48,6 +57,8 @@ export const COMPARE_PARAMETERS = [
     unit: 'g/L',
     kind: 'plain',
     source: 'journal',
+    byStyle:
+      'a long-set lactic chèvre takes a pinch of culture, a cheddar or an alpine more, and of another kind',
   },
   {
     key: 'coagulationTemp',
@@ -55,6 +66,8 @@ export const COMPARE_PARAMETERS = [
     unit: '°C',
     kind: 'temperature',
     source: 'journal',
+    byStyle:
+      'a lactic chèvre sets cool and slowly, a cheddar, an alpine or a mozzarella warm and within the hour',
   },
   {
     key: 'cookTemp',
@@ -62,6 +75,8 @@ export const COMPARE_PARAMETERS = [
     unit: '°C',
     kind: 'temperature',
     source: 'journal',
+    byStyle:
+      'a camembert or a feta is hardly cooked, a cheddar is cooked warm and an alpine or a grana hot',
   },
   {
     key: 'cookRamp',
@@ -69,6 +84,8 @@ export const COMPARE_PARAMETERS = [
     unit: '°C per 5 min',
     kind: 'temperature-rate',
     source: 'journal',
+    byStyle:
+      'a camembert or a feta curd is hardly heated, an alpine or a grana curd is heated far and fast',
   },
   {
     key: 'pressMaxKpa',
@@ -76,6 +93,7 @@ export const COMPARE_PARAMETERS = [
     unit: 'kPa',
     kind: 'pressure',
     source: 'journal',
+    byStyle: 'a camembert or a feta drains under its own weight, a cheddar is pressed hard',
   },
   { key: 'dryingDays', label: 'Drying days', unit: 'days', kind: 'plain', source: 'journal' },
   { key: 'ageDays', label: 'Age at tasting', unit: 'days', kind: 'plain', source: 'tasting-age' },
@@ -85,6 +103,7 @@ export const COMPARE_PARAMETERS = [
     unit: '% of milk weight',
     kind: 'plain',
     source: 'journal',
+    byStyle: 'a bloomy rind dries for a day or two, a natural-rind tomme or cheddar for longer',
   },
   { key: 'style', label: 'Style', unit: null, kind: 'category', source: 'category' },
   { key: 'species', label: 'Milk', unit: null, kind: 'category', source: 'category' },
@@ -94,6 +113,8 @@ export const COMPARE_PARAMETERS = [
     unit: null,
     kind: 'category',
     source: 'category',
+    byStyle:
+      'a feta or a camembert is eaten within weeks, a cheddar or a grana after months or years',
   },
   {
     key: 'rindTreatment',
@@ -101,6 +122,8 @@ export const COMPARE_PARAMETERS = [
     unit: null,
     kind: 'category',
     source: 'category',
+    byStyle:
+      'a soft cheese keeps far more whey, so the same milk gives more of it than of a hard one',
   },
 ] as const satisfies readonly CompareParameter[];
 
@@ -133,6 +156,22 @@ export const COMPARE_OUTCOME_KEYS = COMPARE_OUTCOMES.map((o) => o.key) as [
   CompareOutcomeKey,
   ...CompareOutcomeKey[],
 ];
+
+// Calcium chloride carries no byStyle example: its dose follows the milk (store-bought,
+// pasteurised or homogenised) more than the style (common practice, no published source).
+
+/**
+ * The words for the size of a correlation r, by a named convention: Cohen, J. (1988),
+ * Statistical Power Analysis for the Behavioral Sciences, 2nd ed., §3.2 [memory for the
+ * section]: r ≈ 0.1 small, 0.3 medium, 0.5 large. Cohen offers them as rough guides where
+ * nothing better is known, not as proof that a relation is real or causal.
+ */
+export const CORRELATION_SIZE = {
+  source: 'Cohen, J. (1988), Statistical Power Analysis for the Behavioral Sciences, 2nd ed., §3.2',
+  small: 0.1,
+  medium: 0.3,
+  large: 0.5,
+} as const;
 
 /** Fewer points than this and the answer says the fit is not meaningful. */
 export const MIN_MEANINGFUL_POINTS = 5;

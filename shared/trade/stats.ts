@@ -5,6 +5,7 @@
 
 import * as ss from 'simple-statistics';
 import jStat from 'jstat';
+import { CORRELATION_SIZE } from '../constants/compare';
 
 /** Below this many points a figure is still computed but flagged as not meaningful. */
 export const MIN_MEANINGFUL_N = 5;
@@ -283,4 +284,18 @@ export function regressionSums(xs: readonly number[], ys: readonly number[]): Re
     minX: xs.length ? Math.min(...xs) : 0,
     maxX: xs.length ? Math.max(...xs) : 0,
   };
+}
+
+/** The size of a correlation in Cohen's conventional words (see CORRELATION_SIZE). */
+export type CorrelationSize = 'below small' | 'small' | 'medium' | 'large';
+
+// Thresholds from Cohen (1988), §3.2, kept in shared/constants/compare.ts beside the citation.
+/** Returns the size word for |r| by Cohen's 0.1 / 0.3 / 0.5 (Cohen 1988, §3.2). */
+export function correlationSize(r: number): CorrelationSize {
+  if (!Number.isFinite(r)) throw new RangeError('r must be a finite number');
+  const a = Math.abs(r);
+  if (a >= CORRELATION_SIZE.large) return 'large';
+  if (a >= CORRELATION_SIZE.medium) return 'medium';
+  if (a >= CORRELATION_SIZE.small) return 'small';
+  return 'below small';
 }

@@ -2,6 +2,8 @@ import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { tastings } from '../../server/db/schema/tastings';
 import { SCREENSHOT_DIR, startE2E, type E2E } from '../support/browser';
+import { eq } from 'drizzle-orm';
+import { styles } from '../../server/db/schema';
 import { createMember } from '../support/factories';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
 import { refreshJournalTastingStats } from '../../server/repositories/tastings.repository';
@@ -22,6 +24,19 @@ const BATCHES = [
   { salt: 3.4, overall: 8, cook: 39.5, aging: 240 },
   { salt: 3.7, overall: 8, cook: 40, aging: 240 },
 ];
+
+// Like the user trial: seven batches of two styles, each wheel tasted four times, with the
+// tastings of one wheel close together. Per tasting the salt slope's interval lies above zero;
+// per batch (each wheel's mean) it runs from below zero to above it, with r about 0.51.
+const TRIAL = [
+  { style: 'camembert', salt: 1.8, heat: 'pasteurised', scores: [6, 6, 6, 7] },
+  { style: 'camembert', salt: 2.1, heat: 'pasteurised', scores: [5, 5, 5, 6] },
+  { style: 'camembert', salt: 2.4, heat: 'raw', scores: [7, 7, 7, 7] },
+  { style: 'camembert', salt: 2.7, heat: 'pasteurised', scores: [5, 6, 6, 5] },
+  { style: 'feta', salt: 3.0, heat: 'pasteurised', scores: [7, 8, 8, 7] },
+  { style: 'feta', salt: 3.3, heat: 'raw', scores: [8, 8, 8, 7] },
+  { style: 'feta', salt: 3.6, heat: 'pasteurised', scores: [6, 7, 7, 6] },
+] as const;
 
 // echarts animates points and boxes in; let it settle before a screenshot.
 const settle = (page: Page) => page.waitForTimeout(700);
@@ -99,12 +114,12 @@ describe('Compare in Chromium', () => {
     await reading
       .getByText(
         new RegExp(
-          `^Across 8 tastings of Cheddar, made by @${handle}, each extra gram of salt per litre of milk went with \\+1\\.\\d+ points of overall liking \\(95 % interval \\+\\d`,
+          `^Across 8 batches of Cheddar, made by @${handle} \\(each the mean of its tastings\\), each extra gram of salt per litre of milk went with \\+1\\.\\d+ points of overall liking \\(95 % interval \\+\\d`,
         ),
       )
       .waitFor();
     await reading.getByText(/The whole interval is above zero/).waitFor();
-    await reading.getByText(/^r = 0\.9\d: a strong relation/).waitFor();
+    await reading.getByText(/^r = 0\.9\d over 8 batches: a large correlation by Cohen/).waitFor();
     await reading.getByText(/not a controlled trial/).waitFor();
     await settle(page);
     await e.screenshot(page, 'compare-desktop');
@@ -127,7 +142,7 @@ describe('Compare in Chromium', () => {
     await page.getByRole('img', { name: /Box plot of Overall liking/ }).waitFor();
     await reading
       .getByText(
-        /^Across 8 tastings of Cheddar, .*the highest mean overall liking was for cloth-bound \(7\.5, n = 4\) and the lowest for waxed \(5\.5, n = 4\)\./,
+        /^Across 8 batches of Cheddar, .*the highest average overall liking was for cloth-bound \(7\.5 over 4 batches\) and the lowest for waxed \(5\.5 over 4 batches\)\./,
       )
       .waitFor();
     await settle(page);
@@ -142,7 +157,7 @@ describe('Compare in Chromium', () => {
     );
     const reading = page.getByRole('region', { name: 'What the chart says' });
     await reading
-      .getByText(/^Across 3 tastings of Cheddar, with an aging target of at least 200 days/)
+      .getByText(/^Across 3 batches of Cheddar, with an aging target of at least 200 days/)
       .waitFor();
     await reading
       .getByText('Only 3 points: with fewer than 5, a fitted line would not mean anything.')
@@ -150,7 +165,7 @@ describe('Compare in Chromium', () => {
     await reading.getByText(/not a controlled trial/).waitFor();
 
     await page.goto(`${e.baseUrl}/compare?x=saltPerLitre&y=overall&maker=nobody-here-${handle}`);
-    await page.getByRole('heading', { name: 'No tastings match these filters yet' }).waitFor();
+    await page.getByRole('heading', { name: 'No batches match these filters yet' }).waitFor();
     await page.getByRole('status').getByRole('button', { name: 'Clear the filters' }).waitFor();
     expect(problems).toEqual([]);
   });
@@ -239,5 +254,115 @@ describe('Compare in Chromium', () => {
     await page.goto(`${e.baseUrl}/compare/journals?ids=${ids[1]},999999`);
     await page.getByRole('heading', { name: 'One of these journals is not available' }).waitFor();
     expect(problems.filter((p) => !p.includes('404'))).toEqual([]);
+  });
+});
+
+describe('Compare reads honestly to a home cheesemaker', () => {
+  let e: E2E;
+  let handle: string;
+
+  beforeAll(async () => {
+    e = await startE2E();
+    const db = e.t.ctx.database.db;
+    const maker = await createMember(e.t.ctx);
+    handle = maker.handle;
+    for (const [i, b] of TRIAL.entries()) {
+      const [style] = await db
+        .select({ id: styles.id })
+        .from(styles)
+        .where(eq(styles.slug, b.style));
+      const id = await insertJournalRow(e.t.ctx, maker.id, {
+        title: `Trial ${b.style} ${i + 1}`,
+        styleId: style.id,
+        makeDate: daysAgo(150 + i),
+        metricSaltGPerL: b.salt,
+        heatTreatment: b.heat,
+      });
+      for (const [k, overall] of b.scores.entries()) {
+        await db.insert(tastings).values({
+          journalId: id,
+          tasterId: maker.id,
+          tastedOn: daysAgo(40 - k * 10),
+          ageDays: 70 + k * 10,
+          overall,
+          appearance: 6,
+          aroma: 6,
+          flavour: overall,
+          texture: 6,
+          finish: 6,
+          descriptors: [],
+          defects: [],
+          notes: '',
+        });
+      }
+      await refreshJournalTastingStats(db, id);
+    }
+  });
+  afterAll(() => e?.close());
+
+  it('counts batches by default, and says why one point per tasting is too sure of itself', async () => {
+    const { page, problems } = await e.newPage(DESKTOP);
+    await page.goto(`${e.baseUrl}/compare?x=saltPerLitre&y=overall&maker=${handle}`);
+    const reading = page.getByRole('region', { name: 'What the chart says' });
+    await reading.getByText(/^Across/).waitFor();
+    await settle(page);
+    await e.screenshot(page, 'compare-trial-default-desktop');
+
+    await reading
+      .getByText(
+        /^Across 7 batches, made by @.*\(each the mean of its tastings\), each extra gram of salt per litre of milk went with \+0\.74 points of overall liking \(95 % interval \u22120\.71 to \+2\.2\)\./,
+      )
+      .waitFor();
+    await reading.getByText(/do not show a clear direction/).waitFor();
+    await reading.getByText(/holds the true slope 95 times in 100/).waitFor();
+    await reading.getByText(/^r = 0\.51 over 7 batches/).waitFor();
+    await reading.getByText(/Cohen/).waitFor();
+    await reading.getByText(/not a cause/).waitFor();
+    // No style chosen for salt: the page says styles differ and suggests picking one.
+    await reading
+      .getByText(/^Salt per litre of milk differs a lot from one style to another/)
+      .waitFor();
+    await expect(page.getByRole('radio', { name: 'One batch' }).isChecked()).resolves.toBe(true);
+    expect(new URL(page.url()).searchParams.has('per')).toBe(false);
+
+    // Per tasting: the narrower interval, with the reason it is too narrow.
+    await page.getByText('One tasting', { exact: true }).click();
+    await page.waitForURL(/per=tasting/);
+    await reading.getByText(/^Across 28 tastings of 7 batches/).waitFor();
+    await reading.getByText(/\(95 % interval \+0\.16 to \+1\.3\)/).waitFor();
+    await reading.getByText(/^The whole interval is above zero, but .* too narrow/).waitFor();
+    await reading.getByText(/not independent/).waitFor();
+    await reading.getByText(/pseudo-replication/).waitFor();
+    await settle(page);
+    await e.screenshot(page, 'compare-trial-per-tasting-desktop');
+
+    // One style chosen: no style caution.
+    await page.goto(`${e.baseUrl}/compare?x=saltPerLitre&y=overall&style=feta&maker=${handle}`);
+    await reading.getByText(/^Across 3 batches of Feta/).waitFor();
+    expect(await reading.getByText(/differs a lot from one style/).count()).toBe(0);
+    expect(problems).toEqual([]);
+  });
+
+  it('shows the raw-milk caution beside heat treatment, and reads on a phone', async () => {
+    const { page, problems } = await e.newPage(PHONE);
+    await page.goto(`${e.baseUrl}/compare?x=heatTreatment&y=overall&maker=${handle}`);
+    const reading = page.getByRole('region', { name: 'What the chart says' });
+    await reading.getByText(/^Across/).waitFor();
+    await settle(page);
+    await e.screenshot(page, 'compare-trial-heat-phone');
+
+    await reading.getByText(/the highest average overall liking was for raw/).waitFor();
+    const caution = page.getByRole('note', { name: /Raw-milk cheese/ });
+    await caution.getByText(/Listeria, E\. coli O157:H7, Salmonella/).waitFor();
+    await caution.getByText(/say nothing about whether a cheese is safe/).waitFor();
+    await caution.getByText(/local/).waitFor();
+    await noSidewaysScroll(page);
+
+    await page.goto(`${e.baseUrl}/compare?x=saltPerLitre&y=overall&maker=${handle}`);
+    await reading.getByText(/^Across 7 batches/).waitFor();
+    await noSidewaysScroll(page);
+    await settle(page);
+    await e.screenshot(page, 'compare-trial-default-phone');
+    expect(problems).toEqual([]);
   });
 });

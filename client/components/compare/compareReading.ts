@@ -1,9 +1,14 @@
 // The plain-language reading under the Compare chart: what the numbers say, in the reader's
-// units, with the filters named and the uncertainty stated as plainly as the slope.
+// units, with the filters named, the uncertainty stated as plainly as the slope, and the
+// cautions that keep it honest (repeat tastings, mixed styles, raw milk).
 
-import type { CompareOutcomeKey, CompareParameterKey } from '@shared/constants/compare';
+import {
+  CORRELATION_SIZE,
+  type CompareOutcomeKey,
+  type CompareParameterKey,
+} from '@shared/constants/compare';
 import type { HeatTreatment, RindTreatment, Species } from '@shared/constants/journal';
-import { formatNumber, type UnitSystem } from '@shared/trade';
+import { correlationSize, formatNumber, type UnitSystem } from '@shared/trade';
 import type { CompareResultDto } from '@shared/types/compare';
 import { formatOutcome, isBatchOutcome, parameterOf, parameterScale } from './compareUnits';
 
@@ -171,27 +176,80 @@ export function outcomeName(key: CompareOutcomeKey): string {
   return `the ${key} score`;
 }
 
-/** How strong a correlation r is, in words (Cohen's conventional 0.1 / 0.3 / 0.5). */
+/**
+ * How large a correlation r is, in the words of a named convention (Cohen 1988, §3.2:
+ * 0.1 small, 0.3 medium, 0.5 large; CORRELATION_SIZE), with its article.
+ */
 export function strengthOf(r: number): string {
-  const a = Math.abs(r);
-  if (a < 0.1) return 'hardly any';
-  if (a < 0.3) return 'a weak';
-  if (a < 0.5) return 'a moderate';
-  return 'a strong';
+  const size = correlationSize(r);
+  return size === 'below small' ? 'a below-small' : size === 'medium' ? 'a medium' : `a ${size}`;
 }
+
+/** A caution beside the reading: what could mislead, and what to do about it. */
+export type ReadingNote = {
+  key: 'per-tasting' | 'styles' | 'raw-milk';
+  title: string;
+  text: string;
+  /** Raw milk links to the safety notes. */
+  tone: 'warning' | 'safety';
+};
 
 export type Reading = {
   /** The main sentences. */
   text: string[];
+  /** Cautions that apply to this comparison (pseudo-replication, mixed styles, raw milk). */
+  notes: ReadingNote[];
+  /** That a relation across members' batches is not a cause, with n; empty with no points. */
+  caveat: string;
   /** True when the server said the fit is not meaningful (its caution is shown instead). */
   notMeaningful: boolean;
 };
 
-/** Who the numbers are about: "Across 23 tastings of Cheddar" (with "each batch's mean"). */
+/** How many batches the points come from, when every point is on hand (null otherwise). */
+export function batchCount(result: CompareResultDto): number | null {
+  if (result.kind !== 'numeric' || result.points.length !== result.n) return null;
+  return new Set(result.points.map((p) => p.journalId)).size;
+}
+
+/**
+ * Who the numbers are about: "Across 7 batches of Cheddar (each the mean of its tastings)",
+ * or "Across 28 tastings of 7 batches" when every scorecard is a point.
+ */
 function subject(result: CompareResultDto, filters: ReadingFilters): string {
   const mean =
     result.per === 'journal' && !isBatchOutcome(result.y) ? ' (each the mean of its tastings)' : '';
-  return `Across ${countOf(result.n, result.per)}${filterWords(filters)}${mean}`;
+  const batches = result.per === 'tasting' ? batchCount(result) : null;
+  const of = batches !== null ? ` of ${countOf(batches, 'journal')}` : '';
+  return `Across ${countOf(result.n, result.per)}${of}${filterWords(filters)}${mean}`;
+}
+
+/** The plain-words meaning of the 95 % interval, said once under the slope. */
+export const INTERVAL_MEANING =
+  'The 95 % interval is the range of slopes these points allow: worked out this way, such a ' +
+  'range holds the true slope 95 times in 100. Few or scattered points make it wide.';
+
+/** What r is and how large this one is by Cohen's convention, with n. */
+function correlationWords(
+  r: number,
+  r2: number,
+  n: number,
+  per: 'tasting' | 'journal',
+  what: string,
+  crossesZero: boolean,
+): string {
+  const { small, medium, large } = CORRELATION_SIZE;
+  const value = formatNumber(r, { significant: 2, maxDecimals: 2 });
+  const size = correlationSize(r);
+  let text =
+    `r = ${value} over ${countOf(n, per)}: ${strengthOf(r)} correlation by Cohen's rule of ` +
+    `thumb (${small} small, ${medium} medium, ${large} large; Cohen 1988). r runs from ` +
+    `${MINUS}1 to +1 and says how closely the points follow a straight line; 0 means no ` +
+    `straight-line pattern. The line matches about ${Math.round(r2 * 100)} % of the spread in ${what}.`;
+  if (crossesZero && (size === 'large' || size === 'medium'))
+    text +=
+      ` With only ${countOf(n, per)}, even an r this size can come about by chance, which is ` +
+      'why the interval still crosses zero.';
+  return text;
 }
 
 function numericReading(
@@ -202,7 +260,8 @@ function numericReading(
 ): Reading {
   const head = subject(result, filters);
   const fit = result.fit;
-  if (!result.meaningful || !fit) return { text: [`${head}.`], notMeaningful: true };
+  if (!result.meaningful || !fit)
+    return { text: [`${head}.`], notes: [], caveat: '', notMeaningful: true };
 
   const key = result.x as CompareParameterKey;
   const scale = parameterScale(key, system);
@@ -225,12 +284,20 @@ function numericReading(
   const text = [
     `${head}, ${change} went with ${slope} ${outcomeWords(result.y, slope)} ` +
       `(95 % interval ${signed(lo)} to ${signed(hi)}).`,
+    INTERVAL_MEANING,
   ];
   const what = outcomeName(result.y);
-  if (lo <= 0 && hi >= 0)
+  const crossesZero = lo <= 0 && hi >= 0;
+  if (crossesZero)
     text.push(
       `That interval runs from below zero to above it, so these data do not show a clear ` +
         `direction: ${xName.toLowerCase()} may go with higher or lower ${what}, or make no difference.`,
+    );
+  else if (result.per === 'tasting')
+    text.push(
+      `The whole interval is ${lo > 0 ? 'above' : 'below'} zero, but with every tasting counted ` +
+        'as a point it is too narrow (see “Each tasting counts as a point”): counted once per ' +
+        'batch, the direction may not be clear.',
     );
   else
     text.push(
@@ -239,12 +306,9 @@ function numericReading(
     );
   if (fit.r !== null) {
     const r2 = fit.rSquared ?? fit.r * fit.r;
-    text.push(
-      `r = ${formatNumber(fit.r, { significant: 2, maxDecimals: 2 })}: ${strengthOf(fit.r)} ` +
-        `relation; the line accounts for about ${Math.round(r2 * 100)} % of the spread in ${what}.`,
-    );
+    text.push(correlationWords(fit.r, r2, result.n, result.per, what, crossesZero));
   }
-  return { text, notMeaningful: false };
+  return { text, notes: [], caveat: '', notMeaningful: false };
 }
 
 function categoricalReading(result: CompareResultDto, filters: ReadingFilters): Reading {
@@ -259,28 +323,30 @@ function categoricalReading(result: CompareResultDto, filters: ReadingFilters): 
   const text: string[] = [];
   if (groups.length === 1) {
     const g = groups[0];
-    text.push(`${head}, all are ${g.label}: mean ${what} ${value(g.mean)}.`);
+    text.push(`${head}, all are ${g.label}: average ${what} ${value(g.mean)}.`);
   } else if (groups.length > 1) {
     const top = groups[0];
     const bottom = groups[groups.length - 1];
     text.push(
-      `${head}, the highest mean ${what} was for ${top.label} (${value(top.mean)}, n = ${top.n}) ` +
-        `and the lowest for ${bottom.label} (${value(bottom.mean)}, n = ${bottom.n}).`,
+      `${head}, the highest average ${what} was for ${top.label} ` +
+        `(${value(top.mean)} over ${countOf(top.n, result.per)}) and the lowest for ` +
+        `${bottom.label} (${value(bottom.mean)} over ${countOf(bottom.n, result.per)}).`,
     );
+    const few = `fewer than 5 ${result.per === 'tasting' ? 'tastings' : 'batches'}`;
     const thin = groups.filter((g) => g.n < 5).map((g) => g.label);
     if (thin.length === groups.length)
-      text.push('Every group has fewer than 5 points, so these means say little on their own.');
+      text.push(`Every group has ${few}, so these averages say little on their own.`);
     else if (thin.length)
       text.push(
-        `${capitalise(orList(thin, 'and'))} ${thin.length === 1 ? 'has' : 'have'} fewer than 5 ` +
-          `points, so ${thin.length === 1 ? 'its mean says little on its' : 'their means say little on their'} own.`,
+        `${capitalise(orList(thin, 'and'))} ${thin.length === 1 ? 'has' : 'have'} ${few}, ` +
+          `so ${thin.length === 1 ? 'its average says little on its' : 'their averages say little on their'} own.`,
       );
     text.push(
       'The boxes show where the middle half of the scores lie; where boxes overlap, the groups ' +
         'are not clearly different.',
     );
   }
-  return { text, notMeaningful: !result.meaningful };
+  return { text, notes: [], caveat: '', notMeaningful: !result.meaningful };
 }
 
 /** The reading of a comparison in plain words, in the reader's units. */
@@ -290,8 +356,96 @@ export function readingOf(
   system: UnitSystem,
   xName: string,
 ): Reading {
-  if (result.n === 0) return { text: [], notMeaningful: true };
-  return result.kind === 'categorical'
-    ? categoricalReading(result, filters)
-    : numericReading(result, filters, system, xName);
+  if (result.n === 0) return { text: [], notes: [], caveat: '', notMeaningful: true };
+  const reading =
+    result.kind === 'categorical'
+      ? categoricalReading(result, filters)
+      : numericReading(result, filters, system, xName);
+  return { ...reading, notes: notesFor(result, filters, xName), caveat: caveatOf(result) };
+}
+
+/** That a relation across members' batches is not a cause, with the count of points. */
+export function caveatOf(result: CompareResultDto): string {
+  return (
+    `A relation across these ${countOf(result.n, result.per)} from members' journals is not a ` +
+    'cause: the milk, the culture, the cave and the tasters differ from one batch to the next, ' +
+    'and with few points one odd wheel can tilt the line. These are home batches, not a ' +
+    'controlled trial: use a reading as an idea to try in your own next batch, not as proof.'
+  );
+}
+
+/** The pseudo-replication caution for a comparison with one point per tasting. */
+export function perTastingNote(result: CompareResultDto): ReadingNote {
+  const batches = batchCount(result);
+  const from =
+    batches !== null && batches < result.n
+      ? `These ${countOf(result.n, 'tasting')} come from only ${countOf(batches, 'journal')}. `
+      : '';
+  return {
+    key: 'per-tasting',
+    tone: 'warning',
+    title: 'Each tasting counts as a point',
+    text:
+      `${from}Several tastings of the same wheel are not independent: they share its milk, its ` +
+      'make and its cave, so they agree with each other more than separate batches would. ' +
+      'Counting each as its own point makes the 95 % interval too narrow and the answer look ' +
+      'surer than it is (statisticians call this pseudo-replication). Choose “One batch” for ' +
+      'a fair interval.',
+  };
+}
+
+/**
+ * The styles caution: a numeric parameter whose usual values differ by style, compared over
+ * no style or several, may show the difference between styles rather than its own effect.
+ */
+export function stylesNote(
+  key: CompareParameterKey,
+  filters: ReadingFilters,
+  xName: string,
+): ReadingNote | null {
+  const example = (parameterOf(key) as { byStyle?: string }).byStyle;
+  if (!example || filters.styleNames.length === 1) return null;
+  const chosen = filters.styleNames.length
+    ? `${orList(filters.styleNames, 'and')} mixed together`
+    : 'every style mixed together';
+  return {
+    key: 'styles',
+    tone: 'warning',
+    title: 'Styles differ',
+    text:
+      `${xName} differs a lot from one style to another: ${example}. With ${chosen}, the line ` +
+      `can show the difference between styles rather than what ${xName.toLowerCase()} does ` +
+      'within one. Pick one style in the filters to compare like with like.',
+  };
+}
+
+/** The raw-milk caution (CDC and FDA guidance; 21 CFR 133.113), as on the journal page. */
+export const RAW_MILK_NOTE: ReadingNote = {
+  key: 'raw-milk',
+  tone: 'safety',
+  title: 'Raw-milk cheese: scores say nothing about safety',
+  text:
+    'Raw (unpasteurised) milk can carry Listeria, E. coli O157:H7, Salmonella, Campylobacter ' +
+    'and Brucella (CDC and FDA guidance); aging at least 60 days (21 CFR 133.113) lowers that ' +
+    'risk without removing it. Pregnant people, young children, older adults and anyone with a ' +
+    'weakened immune system should avoid raw-milk cheese. Tasting scores say nothing about ' +
+    'whether a cheese is safe to eat, so a higher score for raw milk here is no reason to use ' +
+    'it. Follow your local food codes, which may be stricter.',
+};
+
+/** Every caution that applies to this comparison, in the order they are shown. */
+export function notesFor(
+  result: CompareResultDto,
+  filters: ReadingFilters,
+  xName: string,
+): ReadingNote[] {
+  const notes: ReadingNote[] = [];
+  if (result.x === 'heatTreatment' || filters.heat.some((h) => h === 'raw' || h === 'thermised'))
+    notes.push(RAW_MILK_NOTE);
+  if (result.per === 'tasting' && result.n > 0) notes.push(perTastingNote(result));
+  if (result.kind === 'numeric') {
+    const styles = stylesNote(result.x as CompareParameterKey, filters, xName);
+    if (styles) notes.push(styles);
+  }
+  return notes;
 }
