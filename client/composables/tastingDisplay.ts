@@ -6,6 +6,7 @@ import {
   HEDONIC_SCALE,
   SCORE_ATTRIBUTE_LABELS,
   SCORE_ATTRIBUTES,
+  typicalTraitsOf,
   type ScoreAttribute,
 } from '@shared/constants/tasting';
 import { ageInDays, calendarDateOf, isoDate } from '@shared/trade';
@@ -87,7 +88,7 @@ export const ATTRIBUTE_HINTS: Record<ScoreAttribute, string> = {
   finish: 'What stays after you swallow, and how long.',
 };
 
-export type ChipOption = { key: string; label: string };
+export type ChipOption = { key: string; label: string; hint?: string };
 export type ChipGroup = { title: string; options: ChipOption[] };
 
 const BASIC_TASTES = new Set(['sweet', 'sour', 'salty', 'bitter', 'umami']);
@@ -112,6 +113,24 @@ export const DEFECT_GROUPS: ChipGroup[] = Object.entries(DEFECT_GROUP_TITLES).ma
   ([group, title]) => ({ title, options: DEFECTS.filter((d) => d.group === group) }),
 );
 
+/**
+ * The defects for a style, without the ones that are the style's own trait (crumbly for a
+ * Caerphilly-type), and those left out, so the scorecard can say so.
+ */
+export function defectGroupsFor(styleSlug: string | null | undefined): {
+  groups: ChipGroup[];
+  typical: ChipOption[];
+} {
+  const typical = typicalTraitsOf(styleSlug);
+  return {
+    groups: DEFECT_GROUPS.map((g) => ({
+      ...g,
+      options: g.options.filter((o) => !typical.has(o.key)),
+    })).filter((g) => g.options.length),
+    typical: DEFECTS.filter((d) => typical.has(d.key)),
+  };
+}
+
 const DESCRIPTOR_LABELS = new Map<string, string>(FLAVOUR_DESCRIPTORS.map((d) => [d.key, d.label]));
 const DEFECT_LABELS = new Map<string, string>(DEFECTS.map((d) => [d.key, d.label]));
 
@@ -127,5 +146,7 @@ export const SCORECARD_SOURCES = {
   descriptors:
     'M. A. Drake, S. C. McIngvale, P. D. Gerard, K. R. Cadwallader and G. V. Civille, "Development of a descriptive language for Cheddar cheese", Journal of Food Science 66(9), 1422–1427, 2001.',
   defects:
-    'The ADSA dairy-products scorecard (Michigan State University Extension bulletin F0798) and the USDA grade standards for Cheddar cheese.',
+    "The ADSA dairy-products scorecard (Michigan State University Extension bulletin F0798) and the USDA grade standards for Cheddar cheese. Both are written for Cheddar; which traits are a style's own rather than a defect is common practice among makers, with no single published source.",
+  hints:
+    "The short meaning shown for each term is Rindwise's own plain wording, written from memory of the sources above, not quoted from them.",
 };

@@ -1,4 +1,5 @@
 import { tastingInputSchema } from '@shared/schemas/tasting';
+import { typicalTraitsOf } from '@shared/constants/tasting';
 import type { JournalDto } from '@shared/types/journal';
 import type { TastingDto } from '@shared/types/tasting';
 import { onScopeDispose, ref, toValue, watch, type MaybeRefOrGetter } from 'vue';
@@ -70,7 +71,8 @@ export function useTastingForm(
           texture: t.texture,
           finish: t.finish,
           descriptors: [...t.descriptors],
-          defects: [...t.defects],
+          // A style's own trait (crumbly for a Caerphilly-type) is no longer a defect for it.
+          defects: t.defects.filter((d) => !typicalTraitsOf(dto.style.slug).has(d)),
           notes: t.notes,
         });
       }

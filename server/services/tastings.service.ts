@@ -1,6 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import type { z } from 'zod';
-import { SCORE_ATTRIBUTES } from '../../shared/constants/tasting';
+import { STYLES } from '../../shared/constants/styles';
+import { DEFECTS, SCORE_ATTRIBUTES, typicalTraitsOf } from '../../shared/constants/tasting';
 import type { tastingInputSchema, tastingUpdateSchema } from '../../shared/schemas/tasting';
 import { ageInDays } from '../../shared/trade/aging';
 import { mean } from '../../shared/trade/stats';
@@ -122,6 +123,22 @@ function checkDates(journal: JournalForTasting, tastedOn: string): number {
 }
 
 /**
+ * Refuses a defect that is the style's own trait (crumbly for a Caerphilly-type, say): the
+ * judging lists are written for Cheddar (shared/constants/tasting.ts, DEFECTS.typicalIn).
+ */
+function checkDefects(journal: JournalForTasting, defects: readonly string[] | undefined) {
+  if (!defects?.length) return;
+  const typical = typicalTraitsOf(journal.styleSlug);
+  const index = defects.findIndex((d) => typical.has(d));
+  if (index < 0) return;
+  const label = DEFECTS.find((d) => d.key === defects[index])?.label ?? defects[index];
+  const style = STYLES.find((st) => st.slug === journal.styleSlug)?.name ?? 'this style';
+  throw new AppError(400, 'VALIDATION_FAILED', 'Some fields need attention.', {
+    defects: `${label} is typical of a ${style}, so it is not counted as a defect here. Describe it in your notes if it stood out.`,
+  });
+}
+
+/**
  * Adds a scorecard. The owner may always score their wheel; another verified member needs a
  * live invite for this journal (the link handed out at a meeting). The owner's first tasting
  * marks the wheel opened.
@@ -147,6 +164,7 @@ export async function addTasting(
     }
   }
   const ageDays = checkDates(journal, input.tastedOn);
+  checkDefects(journal, input.defects);
   const id = await insertTasting(db, {
     journalId,
     tasterId: member.id,
@@ -197,9 +215,10 @@ export async function changeTasting(
   const set: Parameters<typeof updateTasting>[2] = { ...patch };
   if (patch.descriptors) set.descriptors = [...new Set(patch.descriptors)];
   if (patch.defects) set.defects = [...new Set(patch.defects)];
-  if (patch.tastedOn) {
-    const journal = await findJournalForTasting(db, tasting.journalId);
-    set.ageDays = checkDates(journal!, patch.tastedOn);
+  if (patch.tastedOn || patch.defects) {
+    const journal = (await findJournalForTasting(db, tasting.journalId))!;
+    if (patch.tastedOn) set.ageDays = checkDates(journal, patch.tastedOn);
+    checkDefects(journal, patch.defects);
   }
   await updateTasting(db, id, set);
   await refreshJournalTastingStats(db, tasting.journalId);

@@ -82,3 +82,42 @@ export function moistureLossSeries(weighIns: readonly WeighIn[]): MoistureLossPo
     };
   });
 }
+
+/** Above this gain over the last weigh-in a wheel is called heavier (scale noise, fraction). */
+export const WEIGH_IN_GAIN_TOLERANCE = 0.01;
+/**
+ * Most a wheel is taken to lose per day between weigh-ins before we ask (fraction of the last
+ * weight per day), and at most in one step whatever the gap. Common practice, no published
+ * source: young natural-rind wheels lose roughly 0.5-1 % a day at first, less later [memory].
+ */
+export const WEIGH_IN_MAX_LOSS_PER_DAY = 0.02;
+export const WEIGH_IN_MAX_LOSS_AT_ONCE = 0.3;
+
+export interface WeighInDoubt {
+  kind: 'heavier' | 'too-light';
+  /** change against the last weigh-in, percent (positive for a gain, negative for a loss) */
+  changePercent: number;
+  /** days since the last weigh-in (0 for the same day) */
+  days: number;
+}
+
+/**
+ * Returns why a new weigh-in looks wrong against the last one, or null: heavier than it
+ * (wheels lose water as they age), or lighter by more than wheels lose in that time
+ * (percent and days; the thresholds above are common practice, no published source).
+ */
+export function weighInDoubt(
+  last: { date: string; massKg: number } | null,
+  next: { date: string; massKg: number },
+): WeighInDoubt | null {
+  if (!last || !(last.massKg > 0) || !(next.massKg > 0)) return null;
+  const days = Math.round((toEpochMs(next.date) - toEpochMs(last.date)) / MS_PER_DAY);
+  if (days < 0) return null; // a back-dated weigh-in: no "last" to compare with
+  const change = (next.massKg - last.massKg) / last.massKg;
+  const changePercent = Math.round(change * 1000) / 10;
+  if (change > WEIGH_IN_GAIN_TOLERANCE) return { kind: 'heavier', changePercent, days };
+  const loss = -change;
+  if (loss > WEIGH_IN_MAX_LOSS_AT_ONCE || loss > WEIGH_IN_MAX_LOSS_PER_DAY * Math.max(days, 1))
+    return { kind: 'too-light', changePercent, days };
+  return null;
+}

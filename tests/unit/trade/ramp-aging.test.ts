@@ -9,6 +9,7 @@ import {
   rawMilkReadyCheck,
   readyDate,
 } from '../../../shared/trade/aging';
+import { weighInDoubt } from '../../../shared/trade/moisture';
 import {
   DEFAULT_RAMP_LIMIT_C_PER_5_MIN,
   checkHeatingRamp,
@@ -270,5 +271,27 @@ describe('time helpers (ECMAScript Date)', () => {
     expect(dateOfDayNumber(10957)).toEqual({ year: 2000, month: 1, day: 1 });
     // ISO 8601 calendar date, extended format
     expect(isoDate({ year: 2024, month: 3, day: 9 })).toBe('2024-03-09');
+  });
+});
+
+describe('weigh-ins that look wrong (common practice, no published source)', () => {
+  it('doubts a gain over the last weigh-in, and a loss beyond what a wheel loses in the time', () => {
+    const last = { date: '2026-03-01', massKg: 1.48 };
+    expect(weighInDoubt(last, { date: '2026-03-08', massKg: 2 })).toEqual({
+      kind: 'heavier',
+      changePercent: 35.1,
+      days: 7,
+    });
+    expect(weighInDoubt(last, { date: '2026-03-08', massKg: 1.49 })).toBeNull(); // scale noise
+    expect(weighInDoubt(last, { date: '2026-03-08', massKg: 1.4 })).toBeNull(); // 5.4 % in a week
+    expect(weighInDoubt(last, { date: '2026-03-02', massKg: 1.2 })).toMatchObject({
+      kind: 'too-light',
+      days: 1,
+    });
+    expect(weighInDoubt(last, { date: '2026-06-01', massKg: 0.9 })).toMatchObject({
+      kind: 'too-light',
+    }); // more than 30 % at once
+    expect(weighInDoubt(null, { date: '2026-03-08', massKg: 2 })).toBeNull();
+    expect(weighInDoubt(last, { date: '2026-02-20', massKg: 2 })).toBeNull(); // back-dated
   });
 });
