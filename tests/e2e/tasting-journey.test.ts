@@ -86,10 +86,10 @@ describe('the tasting journey in Chromium', () => {
       .getByRole('radiogroup', { name: 'Overall liking' })
       .getByRole('radio', { name: '8, Like very much', checked: true })
       .waitFor();
-    await page.getByRole('button', { name: 'Nutty' }).click();
-    await page.getByRole('button', { name: 'Brothy' }).click();
-    await page.getByRole('button', { name: 'Salty' }).click();
-    await page.getByRole('button', { name: 'Crumbly' }).click();
+    await page.getByRole('button', { name: 'Nutty', exact: true }).click();
+    await page.getByRole('button', { name: 'Brothy', exact: true }).click();
+    await page.getByRole('button', { name: 'Salty', exact: true }).click();
+    await page.getByRole('button', { name: 'Crumbly', exact: true }).click();
     await page
       .getByLabel('Notes')
       .fill('Opened at the club. **Nutty**, a little crumbly at the rind.');
@@ -181,7 +181,7 @@ describe('the tasting journey in Chromium', () => {
     await expect.poll(() => wheels.count()).toBe(3);
     // Soonest ready first.
     await shows(wheels.first(), 'Club night gouda');
-    await shows(wheels.first(), 'Ready since 5 days');
+    await shows(wheels.first(), 'Ready for 5 days');
     await shows(wheels.first(), '53.6 °F');
     await shows(wheels.nth(1), '40 days left');
     await page.getByLabel('Your secret calendar address').waitFor();
