@@ -9,8 +9,8 @@ import type { AuthMember } from '../../middleware/authenticate';
 import { insertTasting, refreshJournalTastingStats } from '../../repositories/tastings.repository';
 import { addPhotos } from '../../services/photos.service';
 import { addReadings, storeNewJournal } from '../../services/journals.service';
-import { FLAVOUR_DESCRIPTORS, DEFECTS } from '../../../shared/constants/tasting';
-import { users } from '../schema';
+import { FLAVOUR_DESCRIPTORS, DEFECTS, typicalTraitsOf } from '../../../shared/constants/tasting';
+import { journals, users } from '../schema';
 import { DEMO_MEMBERS } from './club';
 import { demoJournals, prng } from './journals';
 import { demoPhoto } from './photos';
@@ -154,10 +154,17 @@ export async function seedDemo(ctx: AppContext): Promise<SeededAccount[]> {
             texture: score(-0.3),
             finish: score(-0.2),
             descriptors: FLAVOUR_DESCRIPTORS.filter(() => r() < 0.18).map((d) => d.key),
-            defects: DEFECTS.filter(() => r() < 0.06).map((d) => d.key),
+            defects: DEFECTS.filter(() => r() < 0.06)
+              .map((d) => d.key)
+              .filter((d) => !typicalTraitsOf(doc.styleSlug).has(d)),
             notes: TASTING_NOTES[Math.floor(r() * TASTING_NOTES.length)],
           });
         }
+        // The maker's first tasting is the day the wheel was opened (its age stops there).
+        const openedOn = new Date(makeTime + Math.min(ageDays, firstAge) * 86_400_000)
+          .toISOString()
+          .slice(0, 10);
+        await db.update(journals).set({ openedOn }).where(eq(journals.id, id));
         await refreshJournalTastingStats(db, id);
       }
     }
