@@ -1,4 +1,3 @@
-import '@fontsource/lora/500.css';
 import '@fontsource/lora/700.css';
 import '@fontsource/source-sans-3/400.css';
 import '@fontsource/source-sans-3/600.css';
@@ -7,8 +6,21 @@ import { createPinia } from 'pinia';
 import { createApp } from 'vue';
 import App from './App.vue';
 import { router } from './router';
+import { useSessionStore } from './stores/session';
+
+const pinia = createPinia();
+// The session check goes out first (the router's guard waits for it), then the first route's
+// chunk starts loading beside it, instead of after the guard has passed (vue-router loads a
+// lazy component only then).
+void useSessionStore(pinia).load();
+for (const record of router.resolve(location.pathname + location.search).matched) {
+  for (const component of Object.values(record.components ?? {})) {
+    if (typeof component === 'function' && !('__vccOpts' in component))
+      void (component as () => Promise<unknown>)().catch(() => undefined); // the router retries
+  }
+}
 
 const app = createApp(App);
-app.use(createPinia());
+app.use(pinia);
 app.use(router);
 app.mount('#app');
