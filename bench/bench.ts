@@ -3,6 +3,8 @@
 // captures the SQL the route sends (MariaDB's general log), measures the route with
 // autocannon, then the same SQL sent straight through mysql2 at the same concurrency (the
 // floor). Then the pages in Chromium. Prints a table; writes bench/results/latest.json.
+// BENCH_ONLY=pages skips the routes and measures only the pages (into bench/results/pages.json);
+// BENCH_CLIENT_DIST serves another client build, BENCH_SCREENSHOTS keeps a PNG of each page.
 import { execFile, spawn, type ChildProcess } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import net, { type AddressInfo } from 'node:net';
@@ -27,6 +29,8 @@ const SIZE: FillSize = quick
 const SECONDS = Number(env.BENCH_SECONDS ?? (quick ? 2 : 6));
 const CONNECTIONS = Number(env.BENCH_CONNECTIONS ?? 10);
 const POOL = 10; // the app's DATABASE_POOL_SIZE default, used for the floor as well
+const PAGES_ONLY = env.BENCH_ONLY === 'pages';
+const CLIENT_DIST = env.BENCH_CLIENT_DIST ?? path.join(root, 'dist');
 
 const say = (line: string) => process.stdout.write(`${line}\n`);
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms));
@@ -88,7 +92,7 @@ async function startApp(port: number, extra: Record<string, string> = {}): Promi
       TRUST_PROXY: 'false',
       SECURE_COOKIES: 'false',
       SERVE_CLIENT: 'true',
-      CLIENT_DIST: path.join(root, 'dist'),
+      CLIENT_DIST,
       UPLOADS_DIR: path.join(env.BENCH_TMP ?? os.tmpdir(), 'uploads'),
       ...extra,
     },
@@ -208,6 +212,7 @@ async function main() {
   await handle.close();
   say(`Filled in ${(fill.ms / 1000).toFixed(1)} s: ${JSON.stringify(fill.rows)}`);
 
+  if (PAGES_ONLY) return pagesOnly(fill.probes.journalId, started);
   await rootSql(
     "GRANT SELECT ON mysql.general_log TO 'app'@'127.0.0.1'; SET GLOBAL log_output = 'TABLE'",
   );
@@ -289,17 +294,8 @@ async function main() {
     await pool.end();
   }
 
-  const pageApp = await startApp(port);
-  let pages;
-  try {
-    pages = await measurePages(base, [
-      { name: 'Discover', path: '/' },
-      { name: 'A journal page', path: `/journals/${journalId}` },
-    ]);
-  } finally {
-    pageApp.kill('SIGTERM');
-  }
-  const build = buildScripts(path.join(root, 'dist'));
+  const pages = await pagesOf(port, journalId);
+  const build = buildScripts(CLIENT_DIST);
 
   const trivial = results[0].app;
   const rows = results.map((r) => {
@@ -346,10 +342,7 @@ async function main() {
       verdict: r.verdict,
       sql: r.sql,
     })),
-    pages: pages.map((p) => ({
-      ...p,
-      verdict: `${p.lcpMs < 1000 ? 'met' : 'MISSED'} LCP<1s | ${p.cls < 0.02 ? 'met' : 'MISSED'} CLS<0.02`,
-    })),
+    pages,
     build,
     totalSeconds: (Date.now() - started) / 1000,
   };
@@ -397,13 +390,45 @@ async function main() {
       ].join(' | '),
     );
   }
-  say('\npage | LCP ms | CLS | scripts | JS bytes (decoded) | on the wire | encodings | target');
-  for (const p of output.pages) {
+  printPages(pages, build);
+  say(`\nWrote bench/results/latest.json (${output.totalSeconds.toFixed(0)} s in all).`);
+}
+
+/** Discover and a journal page in Chromium, against a fresh app on `port`, with the verdicts. */
+async function pagesOf(port: number, journalId: number) {
+  const pageApp = await startApp(port);
+  try {
+    const pages = await measurePages(
+      `http://127.0.0.1:${port}`,
+      [
+        { name: 'Discover', path: '/' },
+        { name: 'A journal page', path: `/journals/${journalId}` },
+      ],
+      { runs: Number(env.BENCH_PAGE_RUNS ?? 3), screenshots: env.BENCH_SCREENSHOTS },
+    );
+    return pages.map((p) => ({
+      ...p,
+      verdict: `${p.lcpMs < 1000 ? 'met' : 'MISSED'} LCP<1s | ${p.cls < 0.02 ? 'met' : 'MISSED'} CLS<0.02`,
+    }));
+  } finally {
+    pageApp.kill('SIGTERM');
+  }
+}
+
+function printPages(
+  pages: Awaited<ReturnType<typeof pagesOf>>,
+  build: { files: number; bytes: number },
+) {
+  say(
+    '\npage | viewport | LCP ms (runs) | CLS (runs) | scripts | JS bytes (decoded) | on the wire | encodings | target',
+  );
+  for (const p of pages) {
     say(
       [
         p.name,
-        f(p.lcpMs, 0),
-        p.cls.toFixed(4),
+        p.viewport,
+        `${p.lcpMs.toFixed(0)} (${p.lcpRuns.join(', ')})`,
+        `${p.cls.toFixed(4)} (${p.clsRuns.join(', ')})`,
         p.scripts,
         p.jsBytes,
         p.jsBytesOnWire,
@@ -412,11 +437,28 @@ async function main() {
       ].join(' | '),
     );
   }
-  for (const p of output.pages) {
-    say(`${p.name}: LCP element ${p.lcpElement || '?'}; largest shift ${p.shiftTarget || 'none'}`);
+  for (const p of pages) {
+    say(
+      `${p.name} (${p.viewport}): LCP element ${p.lcpElement || '?'}; largest shift ${p.shiftTarget || 'none'}`,
+    );
   }
   say(`client build: ${build.files} JS files, ${build.bytes} bytes in all`);
-  say(`\nWrote bench/results/latest.json (${output.totalSeconds.toFixed(0)} s in all).`);
+}
+
+/** BENCH_ONLY=pages: the pages alone, written to bench/results/pages.json. */
+async function pagesOnly(journalId: number, started: number) {
+  const pages = await pagesOf(await freePort(), journalId);
+  const build = buildScripts(CLIENT_DIST);
+  const at = new Date().toISOString();
+  const loadAverage = os.loadavg().map((l) => Number(l.toFixed(2)));
+  mkdirSync(path.join(root, 'bench/results'), { recursive: true });
+  writeFileSync(
+    path.join(root, 'bench/results/pages.json'),
+    `${JSON.stringify({ at, loadAverage, size: SIZE, pages, build }, null, 2)}\n`,
+  );
+  say(`\nRindwise pages, ${at}, load ${loadAverage.join(' ')}`);
+  printPages(pages, build);
+  say(`\nWrote bench/results/pages.json (${((Date.now() - started) / 1000).toFixed(0)} s in all).`);
 }
 
 main().catch((error) => {

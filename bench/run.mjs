@@ -21,7 +21,8 @@ async function main() {
   checkNode();
   await ensureNodeModules(root);
   const chromium = await ensureChromium();
-  await ensureClientBuild(root);
+  // BENCH_CLIENT_DIST: a client build of one's own (vite build --outDir), served as it is.
+  if (!process.env.BENCH_CLIENT_DIST) await ensureClientBuild(root);
   tempDir = mkdtempSync(path.join(os.tmpdir(), 'rindwise-bench-'));
   const started = await startPrivateDatabase({
     dir: path.join(tempDir, 'mariadb'),
