@@ -248,9 +248,11 @@ describe('community in Chromium', () => {
     }
     await signIn(page, reader, journalPath);
     expect(await commentCount()).toBe(1);
-    await page
-      .getByText('Hidden by a moderator: only its author and the moderators see it.')
-      .waitFor();
+    // The author sees the moderator's mark on their comment, with the note and what they can do.
+    const mark = page.locator('.conversation .hidden-mark');
+    await mark.getByText('Hidden by a moderator').waitFor();
+    await mark.getByText('Please keep it civil.').waitFor();
+    await mark.getByText(/Only you and the moderators see it\. You can delete it/).waitFor();
     await page.setViewportSize(PHONE);
     await shot(page.locator('.conversation'), 'community-comments-hidden-phone');
     await page.setViewportSize(DESKTOP);
