@@ -8,13 +8,14 @@ import {
   mysqlTable,
   primaryKey,
   uniqueIndex,
+  varchar,
 } from 'drizzle-orm/mysql-core';
 import { HEAT_TREATMENTS, RIND_TREATMENTS, SPECIES } from '../../../shared/constants/journal';
 import { journals } from './journals';
 
 /**
  * Compare's facts, one narrow row per journal: what its filters and privacy rule read (owner,
- * listed = published + public + not hidden, style, milk, heat, rind, aging), the make's
+ * listed = published + public + not hidden, style, milk, heat, rind, aging), its title, the make's
  * metric_* figures, and the sums of its visible (not hidden) tastings. Written in the same
  * transaction as every change to the journal row or its tastings, by refreshCompareFacts in
  * server/repositories/compare.repository.ts; deleted with the journal (cascade).
@@ -29,6 +30,8 @@ export const compareFacts = mysqlTable(
     species: mysqlEnum('species', SPECIES).notNull(),
     heatTreatment: mysqlEnum('heat_treatment', HEAT_TREATMENTS).notNull(),
     rindTreatment: mysqlEnum('rind_treatment', RIND_TREATMENTS).notNull(),
+    /** The journal's title, for the chart's labels without a look-up in journals per point. */
+    title: varchar('title', { length: 140 }).notNull().default(''),
     agingTargetDays: int('aging_target_days'),
     dryingDays: double('drying_days'),
     metricSaltGPerL: double('metric_salt_g_per_l'),
