@@ -78,3 +78,41 @@ describe('compressed client assets', () => {
     ).toBe(404);
   });
 });
+
+describe('compressed API answers', () => {
+  it('compresses JSON above a kilobyte as the client accepts, cached answers included', async () => {
+    const maker = await signedIn(t.app, t.ctx);
+    for (const title of ['A clothbound wheel', 'A waxed wheel', 'A washed-rind wheel'])
+      expect((await maker.post('/api/journals', publicJournalDocument({ title }))).status).toBe(
+        201,
+      );
+    // The styles are read afresh each time; a Discover page comes from the read cache the
+    // second time: both are compressed the same way.
+    for (const url of ['/api/styles', '/api/journals']) {
+      const plain = await visitor(t.app).get(url).set('Accept-Encoding', 'identity').expect(200);
+      expect(plain.headers['content-encoding']).toBeUndefined();
+      expect(Buffer.byteLength(plain.text), url).toBeGreaterThan(1024);
+      for (const round of [1, 2]) {
+        const br = await visitor(t.app)
+          .get(url)
+          .set('Accept-Encoding', 'gzip, deflate, br')
+          .expect(200);
+        expect(br.headers['content-encoding'], `${url}, round ${round}`).toBe('br');
+        expect(br.headers.vary).toMatch(/Accept-Encoding/);
+        // superagent undoes the encoding itself: the same JSON arrives.
+        expect(br.body).toEqual(plain.body);
+
+        const gz = await visitor(t.app).get(url).set('Accept-Encoding', 'gzip').expect(200);
+        expect(gz.headers['content-encoding'], `${url}, round ${round}`).toBe('gzip');
+        expect(gz.body).toEqual(plain.body);
+      }
+    }
+
+    // A small answer goes out as it is.
+    const small = await visitor(t.app)
+      .get('/api/health/live')
+      .set('Accept-Encoding', 'br')
+      .expect(200);
+    expect(small.headers['content-encoding']).toBeUndefined();
+  });
+});
