@@ -9,7 +9,7 @@ import {
   typicalTraitsOf,
   type ScoreAttribute,
 } from '@shared/constants/tasting';
-import { ageInDays, calendarDateOf, isoDate } from '@shared/trade';
+import { ageInDays, calendarDateOf, dayInWords, isoDate } from '@shared/trade';
 
 const DAYS_PER_MONTH = 30.44;
 
@@ -20,17 +20,7 @@ export function todayIso(): string {
 }
 
 /** A calendar date "YYYY-MM-DD" in words, e.g. "14 Mar 2026" (read as a date, no time zone). */
-export function formatDay(iso: string | null | undefined): string {
-  if (!iso) return '–';
-  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
-  if (!y || !m || !d) return iso;
-  return new Date(Date.UTC(y, m - 1, d)).toLocaleDateString('en-GB', {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
-}
+export const formatDay = dayInWords;
 
 /** "1 day", "45 days". */
 export function dayCount(days: number): string {

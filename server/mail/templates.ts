@@ -6,6 +6,7 @@ import {
   RAW_MILK_WHO_SHOULD_AVOID,
   rawMilkReadyCheck,
 } from '../../shared/trade/aging';
+import { dayInWords } from '../../shared/trade/time';
 import type { OutgoingMail } from './mailer';
 
 const escapeHtml = (value: string) =>
@@ -103,7 +104,7 @@ export const mailTemplates = {
       ? []
       : raw.readyBeforeMinimum
         ? [
-            `This wheel is made from unpasteurised milk, and its ${targetDays}-day target comes before the ${RAW_MILK_MIN_AGING_DAYS}-day mark, which it reaches on ${raw.minimumMetOn}. ${RAW_MILK_SALE_RULE}`,
+            `This wheel is made from unpasteurised milk, and its ${targetDays}-day target comes before the ${RAW_MILK_MIN_AGING_DAYS}-day mark, which it reaches on ${dayInWords(raw.minimumMetOn)}. ${RAW_MILK_SALE_RULE}`,
             `${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`,
           ]
         : [

@@ -8,7 +8,7 @@ import {
   rawMilkReadyCheck,
   readyDate,
 } from '../../shared/trade/aging';
-import { calendarDateOf, isoDate } from '../../shared/trade/time';
+import { calendarDateOf, dayInWords, isoDate } from '../../shared/trade/time';
 import type { CaveWheelDto } from '../../shared/types/tasting';
 import type { AppContext } from '../context';
 import { ForbiddenError, NotFoundError } from '../lib/errors';
@@ -129,7 +129,7 @@ export async function calendarFeed(ctx: AppContext, token: string): Promise<stri
       targetDays: w.agingTargetDays,
     });
     const rawLine = raw?.readyBeforeMinimum
-      ? ` Raw milk: this is before the ${RAW_MILK_MIN_AGING_DAYS}-day mark (${raw.minimumMetOn}); see the safety notes before eating or sharing it.`
+      ? ` Raw milk: this is before the ${RAW_MILK_MIN_AGING_DAYS}-day mark (${dayInWords(raw.minimumMetOn)}); see the safety notes before eating or sharing it.`
       : '';
     calendar.createEvent({
       id: `rindwise-ready-${w.id}`,

@@ -3,7 +3,7 @@
 // hour), in the member's time zone when given, else UTC, so daylight-saving changes never
 // make a day of 23 or 25 hours count wrong.
 
-import { calendarDateOf, dateOfDayNumber, dayNumber, isoDate } from './time';
+import { calendarDateOf, dateOfDayNumber, dayInWords, dayNumber, isoDate } from './time';
 import type { CalendarDate, TimeInput } from './time';
 
 /** Minimum aging of cheddar made from unpasteurised milk, days (21 CFR 133.113). */
@@ -153,7 +153,7 @@ export function rawMilkCaution(input: {
   const flagged = daysShort > 0;
   const message = flagged
     ? `This wheel is cheese from unpasteurised milk and is ${ageDays} ${ageDays === 1 ? 'day' : 'days'} old; ` +
-      `it reaches ${RAW_MILK_MIN_AGING_DAYS} days on ${minimumMetOn}, ${daysShort} ` +
+      `it reaches ${RAW_MILK_MIN_AGING_DAYS} days on ${dayInWords(minimumMetOn)}, ${daysShort} ` +
       `${daysShort === 1 ? 'day' : 'days'} later. ${RAW_MILK_SALE_RULE} ` +
       `${RAW_MILK_WHO_SHOULD_AVOID} ${RAW_MILK_LOCAL_RULES}`
     : '';

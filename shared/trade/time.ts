@@ -83,6 +83,22 @@ export function dateOfDayNumber(days: number): CalendarDate {
   return { year: d.getUTCFullYear(), month: d.getUTCMonth() + 1, day: d.getUTCDate() };
 }
 
+/**
+ * A calendar date "YYYY-MM-DD" in words, e.g. "14 Mar 2026" (read as a date, no time zone),
+ * for messages and pages; the ISO string itself if it is not one.
+ */
+export function dayInWords(iso: string | null | undefined): string {
+  if (!iso) return '–';
+  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
+  if (!y || !m || !d) return iso;
+  return new Date(Date.UTC(y, m - 1, d)).toLocaleDateString('en-GB', {
+    day: 'numeric',
+    month: 'short',
+    year: 'numeric',
+    timeZone: 'UTC',
+  });
+}
+
 /** Returns a calendar date as an ISO 8601 date string, e.g. "2024-03-01" (ISO 8601). */
 export function isoDate(date: CalendarDate): string {
   const pad = (n: number, width: number): string => String(n).padStart(width, '0');

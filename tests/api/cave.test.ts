@@ -3,6 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { journals, users } from '../../server/db/schema';
 import { journalReminders } from '../../server/db/schema/tastings';
 import { runReminderPass } from '../../server/services/reminders.service';
+import { dayInWords } from '../../shared/trade/time';
 import { createTestApp, visitor, type TestApp } from '../support/app';
 import { signedIn } from '../support/factories';
 import { daysAgo, insertJournalRow } from '../support/journal-rows';
@@ -229,7 +230,7 @@ describe('raw milk and the 60-day mark', () => {
     await runReminderPass(t.ctx);
     const [youngMail] = mailsAbout(young);
     expect(youngMail.subject).toBe(`Aging target reached (raw milk, under 60 days): ${young}`);
-    expect(youngMail.text).toContain(`reaches on ${daysAgo(-14)}`);
+    expect(youngMail.text).toContain(`reaches on ${dayInWords(daysAgo(-14))}`);
     expect(youngMail.text).toMatch(
       /at least 60 days at no less than 1\.7 °C \(35 °F\) before it is sold \(21 CFR 133\.113/,
     );
@@ -257,7 +258,7 @@ describe('raw milk and the 60-day mark', () => {
     expect(unfolded).toContain(
       'SUMMARY:Aging target reached (raw milk\\, under 60 days): Raw feed wheel',
     );
-    expect(unfolded).toContain('before the 60-day mark (2027-01-31)');
+    expect(unfolded).toContain('before the 60-day mark (31 Jan 2027)');
   });
 });
 
