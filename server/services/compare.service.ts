@@ -29,11 +29,14 @@ const CATEGORY_LABELS: Record<string, Record<string, string>> = {
   rindTreatment: RIND_LABELS,
 };
 
-function cautionFor(n: number, reason: string | null): string | null {
+// What one point is, in the maker's words: a batch (one journal, the mean of its tastings or
+// a batch-level result) or one tasting.
+function cautionFor(n: number, reason: string | null, per: 'tasting' | 'journal'): string | null {
+  const [one, many] = per === 'journal' ? ['batch', 'batches'] : ['tasting', 'tastings'];
   if (reason === 'no-spread-in-x')
-    return 'Every point has the same value here, so no line can be fitted.';
+    return `Every ${one} has the same value here, so no line can be fitted.`;
   if (n < MIN_MEANINGFUL_POINTS) {
-    return `Only ${n} ${n === 1 ? 'point' : 'points'}: with fewer than ${MIN_MEANINGFUL_POINTS}, a fitted line would not mean anything.`;
+    return `Only ${n} ${n === 1 ? one : many}: with fewer than ${MIN_MEANINGFUL_POINTS}, a fitted line would not mean anything.`;
   }
   return null;
 }
@@ -92,7 +95,7 @@ async function computeCompare(
       ...base,
       kind: 'categorical',
       meaningful: rows.length >= MIN_MEANINGFUL_POINTS,
-      caution: cautionFor(rows.length, null),
+      caution: cautionFor(rows.length, null, per),
       points: [],
       fit: null,
       groups: groups
@@ -139,7 +142,7 @@ async function computeCompare(
     ...base,
     kind: 'numeric',
     meaningful: regression.meaningful,
-    caution: cautionFor(regression.n, regression.reason),
+    caution: cautionFor(regression.n, regression.reason, per),
     points,
     fit: fit
       ? {

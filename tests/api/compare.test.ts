@@ -120,7 +120,7 @@ describe('GET /api/compare', () => {
       .expect(200);
     expect(res.body.n).toBe(3);
     expect(res.body.meaningful).toBe(false);
-    expect(res.body.caution).toMatch(/Only 3 points/);
+    expect(res.body.caution).toMatch(/^Only 3 batches: with fewer than 5/);
   });
 
   it('summarises categories: n, mean, median and quartiles per rind treatment', async () => {

@@ -160,7 +160,7 @@ describe('Compare in Chromium', () => {
       .getByText(/^Across 3 batches of Cheddar, with an aging target of at least 200 days/)
       .waitFor();
     await reading
-      .getByText('Only 3 points: with fewer than 5, a fitted line would not mean anything.')
+      .getByText('Only 3 batches: with fewer than 5, a fitted line would not mean anything.')
       .waitFor();
     await reading.getByText(/not a controlled trial/).waitFor();
 
