@@ -4,6 +4,7 @@ import sharp, { type Metadata, type OutputInfo, type SharpOptions } from 'sharp'
 import { PHOTO_WIDTHS } from '../../shared/constants/media';
 import {
   PHOTO_FIELD,
+  PHOTO_FORMATS_TEXT,
   PHOTO_LIMITS,
   photoUploadFieldsSchema,
   type ReorderPhotosInput,
@@ -35,7 +36,6 @@ import {
 import { accessTo, type Viewer } from './journal-access';
 
 const NO_PHOTOS_ADDED = 'No photos were added: fix or remove it and upload the others again.';
-const FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, TIFF or GIF';
 
 /** Raster formats we decode; sharp also reads SVG (and more), which must never get through. */
 const ALLOWED_FORMATS = new Set(['jpeg', 'png', 'webp', 'heif', 'tiff', 'gif']);
@@ -161,7 +161,7 @@ async function checkFile(file: UploadedFile, index: number): Promise<CheckedFile
     new PhotoRejectedError(
       'NOT_AN_IMAGE',
       index,
-      `${file.name} is not a photo we can use: upload a ${FORMATS_TEXT} image.`,
+      `${file.name} is not a photo we can use: upload a ${PHOTO_FORMATS_TEXT} image.`,
     );
   const sniffed = sniffImage(await readHead(file.path));
   if (!sniffed) throw notAnImage();

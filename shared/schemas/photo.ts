@@ -16,6 +16,9 @@ export const PHOTO_LIMITS = {
 /** The multipart field the photos travel in. */
 export const PHOTO_FIELD = 'photos';
 
+/** The formats PHOTO_ACCEPT names, in words (the editor's hint and the server's messages). */
+export const PHOTO_FORMATS_TEXT = 'JPEG, PNG, WebP, AVIF, TIFF or GIF';
+
 /** What an <input type="file" accept> may offer; the server sniffs the bytes regardless. */
 export const PHOTO_ACCEPT = 'image/jpeg,image/png,image/webp,image/avif,image/tiff,image/gif';
 

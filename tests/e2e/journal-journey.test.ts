@@ -136,7 +136,7 @@ describe('the first journal journey in Chromium', () => {
     await page.getByLabel('Cave humidity (% RH)').fill('88');
     await page.getByRole('button', { name: '+ Add a weigh-in' }).click();
     await row(page, 'Weigh-in 1').getByLabel('Weight (kg)').fill('1.21');
-    await page.getByLabel('Notes (Markdown)').fill('Morning milk, **clean break** at 40 minutes.');
+    await page.getByLabel('How the make went').fill('Morning milk, **clean break** at 40 minutes.');
 
     // The first save creates the draft and the address becomes the edit address.
     await page.getByRole('button', { name: 'Save draft' }).click();
