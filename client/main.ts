@@ -5,6 +5,8 @@ import './styles/base.css';
 import { createPinia } from 'pinia';
 import { createApp } from 'vue';
 import App from './App.vue';
+import { fetchJournal } from './api/journals';
+import { startEarly } from './api/early';
 import { router } from './router';
 import { useSessionStore } from './stores/session';
 
@@ -13,7 +15,13 @@ const pinia = createPinia();
 // chunk starts loading beside it, instead of after the guard has passed (vue-router loads a
 // lazy component only then).
 void useSessionStore(pinia).load();
-for (const record of router.resolve(location.pathname + location.search).matched) {
+const first = router.resolve(location.pathname + location.search);
+// A journal page's journal is read beside them too (useJournal takes it).
+if (first.name === 'journal') {
+  const id = String(first.params.id);
+  startEarly(`journal:${id}`, () => fetchJournal(id));
+}
+for (const record of first.matched) {
   for (const component of Object.values(record.components ?? {})) {
     if (typeof component === 'function' && !('__vccOpts' in component))
       void (component as () => Promise<unknown>)().catch(() => undefined); // the router retries

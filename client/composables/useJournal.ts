@@ -2,6 +2,7 @@ import type { JournalDto } from '@shared/types/journal';
 import type { VolumeUnit } from '@shared/trade/units';
 import { onScopeDispose, ref, toValue, watch, type MaybeRefOrGetter } from 'vue';
 import { copyJournal, deleteJournal, fetchJournal } from '../api/journals';
+import { takeEarly } from '../api/early';
 import { ApiError } from '../api/http';
 
 /** One journal for its page: the DTO, loading and not-found state, delete and copy. */
@@ -21,7 +22,9 @@ export function useJournal(id: MaybeRefOrGetter<string | number>) {
     notFound.value = false;
     error.value = null;
     try {
-      const dto = await fetchJournal(toValue(id), mine.signal);
+      const key = toValue(id);
+      // The read main.ts sent at start-up for this page, when there is one.
+      const dto = await (takeEarly<JournalDto>(`journal:${key}`) ?? fetchJournal(key, mine.signal));
       if (!mine.signal.aborted) journal.value = dto;
     } catch (e) {
       if (mine.signal.aborted || (e as Error).name === 'AbortError') return;
