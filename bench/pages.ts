@@ -36,6 +36,12 @@ export type PageResult = {
   jsBytes: number;
   jsBytesOnWire: number;
   jsEncodings: string[];
+  /**
+   * Where the LCP's time went (medians, ms after navigation): the first byte of the HTML, the
+   * end of the last script and of the last API answer that arrived before the LCP, and the
+   * LCP itself. The gap after the last of them is rendering.
+   */
+  lcpParts: { ttfb: number; scriptsDone: number; apiDone: number };
 };
 
 // The package's exports map leaves the IIFE build out, so it is found by its path.
@@ -149,6 +155,21 @@ export async function measurePages(
                 }
               ).__vitals,
           );
+          const lcpAt = vitals.lcp ?? Number.POSITIVE_INFINITY;
+          // A string, not a function: tsx would wrap a named inner function in a helper the page
+          // does not have.
+          const parts = (await page.evaluate(`(() => {
+            const before = ${lcpAt};
+            const nav = performance.getEntriesByType('navigation')[0];
+            const ends = { script: 0, api: 0 };
+            for (const r of performance.getEntriesByType('resource')) {
+              if (r.responseEnd > before) continue;
+              if (r.initiatorType === 'script' || /\\.js$/.test(r.name))
+                ends.script = Math.max(ends.script, r.responseEnd);
+              if (r.name.includes('/api/')) ends.api = Math.max(ends.api, r.responseEnd);
+            }
+            return { ttfb: nav ? nav.responseStart : 0, scriptsDone: ends.script, apiDone: ends.api };
+          })()`)) as PageResult['lcpParts'];
           if (screenshots && run === 0) {
             mkdirSync(screenshots, { recursive: true });
             const slug = target.name.toLowerCase().replace(/[^a-z0-9]+/g, '-');
@@ -166,6 +187,7 @@ export async function measurePages(
             jsBytes: loaded.reduce((sum, s) => sum + s.bytes, 0),
             jsBytesOnWire: loaded.reduce((sum, s) => sum + s.wire, 0),
             jsEncodings: [...new Set(loaded.map((s) => s.encoding))],
+            lcpParts: parts,
           });
           await context.close();
         }
@@ -183,6 +205,11 @@ export async function measurePages(
           jsBytes: median(samples.map((s) => s.jsBytes)),
           jsBytesOnWire: median(samples.map((s) => s.jsBytesOnWire)),
           jsEncodings: samples[0].jsEncodings,
+          lcpParts: {
+            ttfb: Math.round(median(samples.map((s) => s.lcpParts.ttfb))),
+            scriptsDone: Math.round(median(samples.map((s) => s.lcpParts.scriptsDone))),
+            apiDone: Math.round(median(samples.map((s) => s.lcpParts.apiDone))),
+          },
         });
       }
     }
