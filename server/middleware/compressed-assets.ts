@@ -1,4 +1,4 @@
-import { readFile } from 'node:fs/promises';
+import { readdir, readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { brotliCompress, constants, gzip } from 'node:zlib';
 import { promisify } from 'node:util';
@@ -21,7 +21,9 @@ type Encoded = { br: Buffer; gzip: Buffer };
  * Compressed copies of the client build's text assets (Brotli or gzip, as the browser
  * accepts), made once per file on first request and kept: the names carry a content hash,
  * so a file never changes under its name. Everything else falls through to express.static.
- * A reverse proxy that compresses does the same job in production.
+ * The copies are made in the background as the server starts, one file after another, so the
+ * first visitor after a deploy does not wait for them (Brotli 9 takes about a second for a
+ * build). A reverse proxy that compresses does the same job in production.
  */
 export function compressedAssets(dir: string): RequestHandler {
   const cache = new Map<string, Promise<Encoded | null>>();
@@ -32,6 +34,15 @@ export function compressedAssets(dir: string): RequestHandler {
         gzip: await gzipAsync(raw, { level: 9 }),
       }))
       .catch(() => null);
+  setImmediate(async () => {
+    const files = await readdir(dir).catch(() => [] as string[]);
+    for (const file of files) {
+      if (!NAME.test(`/${file}`) || cache.has(file)) continue;
+      const encoded = encode(file);
+      cache.set(file, encoded);
+      await encoded;
+    }
+  });
   return async (req, res, next) => {
     if ((req.method !== 'GET' && req.method !== 'HEAD') || !NAME.test(req.path)) return next();
     const accepts = String(req.headers['accept-encoding'] ?? '');
