@@ -161,8 +161,10 @@ async function captureSql(pool: mysql.Pool, target: string): Promise<Captured> {
     const sql = rows
       .map((r) => r.argument)
       .filter(
-        // SET STATEMENT … FOR SELECT is a query with its own settings, not a session set-up.
+        // SET STATEMENT … FOR SELECT is a query with its own settings, not a session set-up;
+        // the read cache's epoch is the app's own poll (other servers' writes), not the route's.
         (s) =>
+          !/read_cache_epoch/.test(s) &&
           !/^(SET(?! STATEMENT)|SHOW|SELECT 1$|COMMIT|BEGIN|START|ROLLBACK|SELECT @@)/i.test(
             s.trim(),
           ),
