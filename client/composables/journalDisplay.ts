@@ -1,6 +1,7 @@
 // Small display helpers for journals, shared by Discover, the journal page and My journals.
 
 import type { JournalStatus, Visibility } from '@shared/constants/journal';
+import { dayInWords } from '@shared/trade/time';
 
 const DAYS_PER_MONTH = 30.44;
 
@@ -14,17 +15,7 @@ export function formatDays(days: number | null | undefined): string {
 }
 
 /** A calendar date "YYYY-MM-DD" in words, e.g. "14 Mar 2026", read as a date (no time zone). */
-export function formatDate(iso: string | null | undefined): string {
-  if (!iso) return '–';
-  const [y, m, d] = iso.slice(0, 10).split('-').map(Number);
-  if (!y || !m || !d) return iso;
-  return new Date(Date.UTC(y, m - 1, d)).toLocaleDateString('en-GB', {
-    day: 'numeric',
-    month: 'short',
-    year: 'numeric',
-    timeZone: 'UTC',
-  });
-}
+export const formatDate = dayInWords;
 
 /**
  * A time of day for "Saved at 10:42", in the browser's zone and clock (13:05 or 1:05 PM, as
