@@ -86,3 +86,13 @@ export function formatMinutes(minutes: number | null | undefined): string {
   const rest = m % 60;
   return rest ? `${h} h ${rest} min` : `${h} h`;
 }
+
+/** The warning for an aging range that cannot match anything (to before from), or undefined. */
+export function agingRangeProblem(
+  from: number | null | undefined,
+  to: number | null | undefined,
+): string | undefined {
+  if (from === null || from === undefined || to === null || to === undefined || to >= from)
+    return undefined;
+  return `${to} days is before ${from}: no batch can match. Swap them or clear one.`;
+}
