@@ -91,17 +91,21 @@ describe('demo seed', () => {
     // Written as the seed went, through the services and repositories.
     expect(await expectFactsUpToDate(t.ctx)).toBeGreaterThanOrEqual(24);
     const before = await supertest(t.app).get('/api/compare?x=ageDays&y=flavour').expect(200);
-    // The backfill statement of the migration that made the table, run on the seeded rows.
-    const migration = readFileSync(
-      new URL('../../migrations/0009_compare_facts.sql', import.meta.url),
-      'utf8',
-    );
-    const backfill = migration
-      .split('--> statement-breakpoint')
-      .map((s) => s.trim())
-      .find((s) => s.startsWith('INSERT INTO `compare_facts`'))!;
+    // The backfill statements of the migrations that made the table and added its title,
+    // run in their order on the seeded rows.
+    const statements = (file: string) =>
+      readFileSync(new URL(`../../migrations/${file}`, import.meta.url), 'utf8')
+        .split('--> statement-breakpoint')
+        .map((s) => s.trim());
+    const backfill = statements('0009_compare_facts.sql').find((s) =>
+      s.startsWith('INSERT INTO `compare_facts`'),
+    )!;
+    const titles = statements('0011_compare_facts_title.sql').find((s) =>
+      s.startsWith('UPDATE `compare_facts`'),
+    )!;
     await t.ctx.database.db.execute(sql`DELETE FROM compare_facts`);
     await t.ctx.database.db.execute(sql.raw(backfill));
+    await t.ctx.database.db.execute(sql.raw(titles));
     expect(await expectFactsUpToDate(t.ctx)).toBeGreaterThanOrEqual(24);
     const after = await supertest(t.app).get('/api/compare?x=ageDays&y=flavour').expect(200);
     expect(after.body).toEqual(before.body);

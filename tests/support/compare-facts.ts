@@ -36,6 +36,7 @@ export async function factsFromScratch(
       species: j.species,
       heatTreatment: j.heatTreatment,
       rindTreatment: j.rindTreatment,
+      title: j.title,
       agingTargetDays: j.agingTargetDays,
       dryingDays: j.dryingDays,
       metricSaltGPerL: j.metricSaltGPerL,
