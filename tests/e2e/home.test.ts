@@ -36,6 +36,22 @@ describe('home page in Chromium', () => {
     expect(problems).toEqual([]);
   });
 
+  it('says what a search found nothing for, and warns of an aging range that cannot match', async () => {
+    const { page, problems } = await e.newPage();
+    await page.goto(`${e.baseUrl}/?q=quuxcurd`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { name: 'No journal mentions “quuxcurd”' }).waitFor();
+    await page.getByRole('button', { name: 'Clear the search' }).click();
+    await expect(page.getByLabel('Search titles and notes').inputValue()).resolves.toBe('');
+
+    await page.getByLabel('From (days)').fill('240');
+    await page.getByLabel('To (days)').fill('60');
+    await page.getByLabel('To (days)').blur();
+    await page
+      .getByText('60 days is before 240: no batch can match. Swap them or clear one.')
+      .waitFor();
+    expect(problems).toEqual([]);
+  });
+
   it('shows a 404 page for an unknown address', async () => {
     const { page } = await e.newPage();
     await page.goto(`${e.baseUrl}/no/such/page`);
