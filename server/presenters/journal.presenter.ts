@@ -1,4 +1,4 @@
-import { ageInDays } from '../../shared/trade/aging';
+import { wheelAgeDays } from '../../shared/trade/aging';
 import {
   journalDerivedFigures,
   type JournalFiguresInput,
@@ -115,7 +115,7 @@ export function presentJournalSummary(
     rindTreatment: j.rindTreatment,
     milkVolumeL: j.milkVolumeL,
     agingTargetDays: j.agingTargetDays,
-    ageDays: ageInDays(j.makeDate, now),
+    ageDays: wheelAgeDays(j.makeDate, j, now),
     tastingCount: j.tastingCount,
     meanOverall: j.meanOverall,
     cover: cover ? presentPhoto(cover) : null,

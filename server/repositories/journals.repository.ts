@@ -338,6 +338,7 @@ const summaryCols = {
   status: journals.status,
   visibility: journals.visibility,
   wheelStatus: journals.wheelStatus,
+  openedOn: journals.openedOn,
   species: journals.species,
   heatTreatment: journals.heatTreatment,
   rindTreatment: journals.rindTreatment,

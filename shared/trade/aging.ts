@@ -123,6 +123,21 @@ export function rawMilkReadyCheck(input: {
 export const CUT_WHEEL_STATUSES: readonly string[] = ['opened', 'finished'];
 
 /**
+ * Returns a wheel's age in whole days: today's for a wheel still aging, and its age on the
+ * day it was cut for an opened or finished one (common practice, no published source: a
+ * wheel stops aging once cut).
+ */
+export function wheelAgeDays(
+  madeOn: TimeInput | CalendarDate,
+  wheel: { wheelStatus: string; openedOn: string | null },
+  at: TimeInput | CalendarDate,
+  timeZone?: string,
+): number {
+  const cut = CUT_WHEEL_STATUSES.includes(wheel.wheelStatus) && wheel.openedOn !== null;
+  return ageInDays(madeOn, cut ? wheel.openedOn! : at, timeZone);
+}
+
+/**
  * Returns the opened-on date a journal should keep when its wheel moves from one status to
  * another (ISO "YYYY-MM-DD" or null): the day it is first cut (`today`), kept through
  * opened and finished, cleared when the wheel goes back to the cave (common practice, no

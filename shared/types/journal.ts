@@ -48,6 +48,7 @@ export type JournalSummaryDto = {
   rindTreatment: RindTreatment;
   milkVolumeL: number;
   agingTargetDays: number | null;
+  /** Today's age, or the age on the day it was cut for an opened or finished wheel. */
   ageDays: number;
   tastingCount: number;
   meanOverall: number | null;

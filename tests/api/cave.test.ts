@@ -319,5 +319,9 @@ describe('opened wheels stop aging', () => {
     expect(tasted.status).toBe(201);
     const aging = (await maker.get(`/api/journals/${id}`).expect(200)).body.derived.aging;
     expect(aging).toMatchObject({ cut: true, openedOn: daysAgo(3), ageAtOpeningDays: 47 });
+    // The cards and the table say the same age: 47 days, not the running 50.
+    const mine = (await maker.get('/api/journals?mine=true').expect(200)).body.items;
+    expect(mine.find((j: { id: number }) => j.id === id)).toMatchObject({ ageDays: 47 });
+    expect((await maker.get(`/api/journals/${id}`).expect(200)).body.ageDays).toBe(47);
   });
 });

@@ -8,6 +8,7 @@ import {
   rawMilkCaution,
   rawMilkReadyCheck,
   readyDate,
+  wheelAgeDays,
 } from '../../../shared/trade/aging';
 import { weighInDoubt } from '../../../shared/trade/moisture';
 import {
@@ -293,5 +294,19 @@ describe('weigh-ins that look wrong (common practice, no published source)', () 
     }); // more than 30 % at once
     expect(weighInDoubt(null, { date: '2026-03-08', massKg: 2 })).toBeNull();
     expect(weighInDoubt(last, { date: '2026-02-20', massKg: 2 })).toBeNull(); // back-dated
+  });
+});
+
+describe('wheelAgeDays', () => {
+  // Common practice, no published source: a wheel stops aging once it is cut.
+  it('counts to today while the wheel ages, and to the day it was cut once it is opened', () => {
+    const made = '2026-01-10';
+    const today = '2026-04-10';
+    expect(wheelAgeDays(made, { wheelStatus: 'aging', openedOn: null }, today)).toBe(90);
+    expect(wheelAgeDays(made, { wheelStatus: 'opened', openedOn: '2026-03-11' }, today)).toBe(60);
+    expect(wheelAgeDays(made, { wheelStatus: 'finished', openedOn: '2026-03-11' }, today)).toBe(60);
+    // Back in the cave, or opened without a recorded day: the running age.
+    expect(wheelAgeDays(made, { wheelStatus: 'aging', openedOn: '2026-03-11' }, today)).toBe(90);
+    expect(wheelAgeDays(made, { wheelStatus: 'opened', openedOn: null }, today)).toBe(90);
   });
 });
