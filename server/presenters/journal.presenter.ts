@@ -1,4 +1,4 @@
-import { wheelAgeDays } from '../../shared/trade/aging';
+import { cutOn, wheelAgeDays } from '../../shared/trade/aging';
 import {
   journalDerivedFigures,
   type JournalFiguresInput,
@@ -116,6 +116,7 @@ export function presentJournalSummary(
     milkVolumeL: j.milkVolumeL,
     agingTargetDays: j.agingTargetDays,
     ageDays: wheelAgeDays(j.makeDate, j, now),
+    openedOn: cutOn(j),
     tastingCount: j.tastingCount,
     meanOverall: j.meanOverall,
     cover: cover ? presentPhoto(cover) : null,

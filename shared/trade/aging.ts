@@ -123,9 +123,17 @@ export function rawMilkReadyCheck(input: {
 export const CUT_WHEEL_STATUSES: readonly string[] = ['opened', 'finished'];
 
 /**
+ * Returns the day a wheel's age stops (ISO "YYYY-MM-DD"): the day it was cut, for an opened
+ * or finished wheel whose opening day is known; null while it still ages (common practice,
+ * no published source: a wheel stops aging once cut).
+ */
+export function cutOn(wheel: { wheelStatus: string; openedOn: string | null }): string | null {
+  return CUT_WHEEL_STATUSES.includes(wheel.wheelStatus) ? wheel.openedOn : null;
+}
+
+/**
  * Returns a wheel's age in whole days: today's for a wheel still aging, and its age on the
- * day it was cut for an opened or finished one (common practice, no published source: a
- * wheel stops aging once cut).
+ * day it was cut (cutOn) for an opened or finished one.
  */
 export function wheelAgeDays(
   madeOn: TimeInput | CalendarDate,
@@ -133,8 +141,7 @@ export function wheelAgeDays(
   at: TimeInput | CalendarDate,
   timeZone?: string,
 ): number {
-  const cut = CUT_WHEEL_STATUSES.includes(wheel.wheelStatus) && wheel.openedOn !== null;
-  return ageInDays(madeOn, cut ? wheel.openedOn! : at, timeZone);
+  return ageInDays(madeOn, cutOn(wheel) ?? at, timeZone);
 }
 
 /**

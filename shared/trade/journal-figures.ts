@@ -6,6 +6,7 @@
 import type { DerivedFiguresDto } from '../types/journal';
 import {
   CUT_WHEEL_STATUSES,
+  cutOn,
   RAW_MILK_LOCAL_RULES,
   RAW_MILK_SALE_RULE,
   RAW_MILK_WHO_SHOULD_AVOID,
@@ -260,7 +261,10 @@ export function journalDerivedFigures(
     input.milk.heatTreatment === 'raw' || input.milk.heatTreatment === 'thermised';
   // Once cut, a wheel stops aging: the page shows its age at opening, not a running age.
   const cut = CUT_WHEEL_STATUSES.includes(input.aging.wheelStatus ?? '');
-  const openedOn = input.aging.openedOn ?? null;
+  const openedOn = cutOn({
+    wheelStatus: input.aging.wheelStatus ?? '',
+    openedOn: input.aging.openedOn ?? null,
+  });
   const rawReady = rawMilkReadyCheck({
     heatTreatment: input.milk.heatTreatment,
     madeOn: input.makeDate,
@@ -323,8 +327,8 @@ export function journalDerivedFigures(
       daysLeft: targetDays !== null ? daysToTarget(input.makeDate, targetDays, at) : null,
       readyDate: targetDays !== null ? readyDate(input.makeDate, targetDays) : null,
       cut,
-      openedOn: cut ? openedOn : null,
-      ageAtOpeningDays: cut && openedOn ? ageInDays(input.makeDate, openedOn) : null,
+      openedOn,
+      ageAtOpeningDays: openedOn ? ageInDays(input.makeDate, openedOn) : null,
       rawMilkMinimumOn: rawReady?.minimumMetOn ?? null,
       readyBeforeRawMilkMinimum: rawReady?.readyBeforeMinimum ?? false,
     },

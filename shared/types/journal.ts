@@ -48,8 +48,10 @@ export type JournalSummaryDto = {
   rindTreatment: RindTreatment;
   milkVolumeL: number;
   agingTargetDays: number | null;
-  /** Today's age, or the age on the day it was cut for an opened or finished wheel. */
+  /** Today's age, or the age on openedOn for an opened or finished wheel. */
   ageDays: number;
+  /** The day an opened or finished wheel was cut (its age stops there); null while it ages. */
+  openedOn: string | null;
   tastingCount: number;
   meanOverall: number | null;
   cover: PhotoDto | null;

@@ -17,6 +17,7 @@ export function journalDto(overrides: Partial<JournalDto> = {}): JournalDto {
     milkVolumeL: 15.14,
     agingTargetDays: 90,
     ageDays: 0,
+    openedOn: null,
     tastingCount: 0,
     meanOverall: null,
     cover: null,
